@@ -1,0 +1,72 @@
+import express, { type Express } from "express";
+import helmet from "helmet";
+import { pinoHttp } from "pino-http";
+import { existsSync } from "node:fs";
+import { join } from "node:path";
+import type { AppServices, RouteContext } from "./services/types.js";
+import type { RouteDeclaration } from "./http/policyRouter.js";
+import { errorHandler, notFoundRoute } from "./http/errors.js";
+import { sessionMiddleware } from "./http/session.js";
+import { createCredentialChecker } from "./commands/credentialChecker.js";
+import { healthRoutes } from "./routes/health/health.js";
+import { sessionRoutes } from "./routes/session/session.js";
+import { peopleRoutes } from "./routes/people/people.js";
+import { fileRoutes } from "./routes/files/files.js";
+import { mailRoutes } from "./routes/mail/mail.js";
+import { auditRoutes } from "./routes/audit/audit.js";
+
+export interface BuiltApp {
+  app: Express;
+  routes: RouteDeclaration[];
+  close(): Promise<void>;
+}
+
+/** Builds the Express app from its services; index.ts and the tests each call this. */
+export function createApp(services: AppServices): BuiltApp {
+  const { settings, log } = services;
+  const app = express();
+  app.set("trust proxy", "loopback");
+  app.disable("x-powered-by");
+  const checkCredentials = createCredentialChecker({ db: services.db, mail: services.mail, lockoutThreshold: settings.lockoutThreshold, appUrl: settings.appUrl });
+  const ctx: RouteContext = { ...services, checkCredentials };
+  const routes: RouteDeclaration[] = [];
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", "data:", "blob:"],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+      strictTransportSecurity: settings.secureCookie,
+    }),
+  );
+  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === "/api/health" }, quietReqLogger: true }));
+  app.use("/api", express.json({ limit: "1mb" }));
+  const sessions = sessionMiddleware({ pool: services.pool, db: services.db, secret: settings.sessionSecret, idleMinutes: settings.sessionIdleMinutes, secureCookie: settings.secureCookie, checkCredentials });
+  app.use("/api", ...sessions.handlers);
+
+  for (const r of [healthRoutes(ctx, routes), sessionRoutes(ctx, routes, sessions.passport), peopleRoutes(ctx, routes), fileRoutes(ctx, routes), mailRoutes(ctx, routes), auditRoutes(ctx, routes)]) {
+    app.use(r.mountPath, r.router);
+  }
+  app.use("/api", notFoundRoute);
+
+  if (settings.webDist && existsSync(join(settings.webDist, "index.html"))) {
+    const dist = settings.webDist;
+    app.use(express.static(dist, { index: false, maxAge: "1h", setHeaders: (res, path) => path.includes("/assets/") && res.setHeader("Cache-Control", "public, max-age=31536000, immutable") }));
+    // The client routes its own paths: every other GET gets the app's page.
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(join(dist, "index.html")));
+  }
+  app.use(errorHandler(log));
+  return { app, routes, close: async () => sessions.close() };
+}

@@ -1,0 +1,74 @@
+import { pino, type Logger } from "pino";
+import type { Server } from "node:http";
+import type { Env } from "./config.js";
+import { createDatabase, runMigrations } from "./db/client.js";
+import { seedDemo } from "./db/seed.js";
+import { createStorageService } from "./services/storage.js";
+import { createMailService } from "./services/mail.js";
+import { createApp } from "./app.js";
+
+export interface Endpoints {
+  databaseUrl: string;
+  s3Endpoint: string;
+  smtpUrl: string;
+  mailDir?: string;
+  sessionSecret: string;
+  webDist?: string;
+}
+
+export interface RunningServer {
+  url: string;
+  server: Server;
+  log: Logger;
+  close(): Promise<void>;
+}
+
+/** Connects to the services, migrates, seeds (when asked), and serves the app. */
+export async function bootServer(env: Env, endpoints: Endpoints, log: Logger = pino({ level: env.LOG_LEVEL })): Promise<RunningServer> {
+  const database = createDatabase(endpoints.databaseUrl, (err) => log.warn({ err: err.message }, "database connection lost; the pool reconnects on the next request"), 20);
+  await runMigrations(database.db);
+  if (env.SEED_DEMO) {
+    const { created } = await seedDemo(database.db);
+    if (created) log.info({ created }, "demo data seeded");
+  }
+  const storage = createStorageService({ endpoint: endpoints.s3Endpoint, bucket: env.S3_BUCKET, region: env.S3_REGION, accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY });
+  await storage.ensureBucket();
+  const mail = createMailService({ db: database.db, smtpUrl: endpoints.smtpUrl, from: env.MAIL_FROM, pollMs: env.MAIL_POLL_MS, log });
+  const url = env.APP_URL ?? `http://${env.HOST}:${env.PORT}`;
+  const built = createApp({
+    settings: {
+      appUrl: url,
+      sessionSecret: endpoints.sessionSecret,
+      sessionIdleMinutes: env.SESSION_IDLE_MINUTES,
+      lockoutThreshold: env.LOCKOUT_THRESHOLD,
+      uploadMaxBytes: env.UPLOAD_MAX_BYTES,
+      secureCookie: url.startsWith("https://"),
+      signInPerMinute: 20,
+      mailDir: endpoints.mailDir,
+      webDist: endpoints.webDist,
+    },
+    pool: database.pool,
+    db: database.db,
+    storage,
+    mail,
+    log,
+  });
+  mail.start();
+  const server = await new Promise<Server>((ok, fail) => {
+    const s = built.app.listen(env.PORT, env.HOST, () => ok(s));
+    s.once("error", fail);
+  });
+  return {
+    url,
+    server,
+    log,
+    close: async () => {
+      await new Promise<void>((ok) => server.close(() => ok()));
+      server.closeAllConnections?.();
+      await mail.stop();
+      await built.close();
+      storage.close();
+      await database.close();
+    },
+  };
+}

@@ -1,0 +1,34 @@
+import type pg from "pg";
+import type { Logger } from "pino";
+import type { Db } from "../db/client.js";
+import type { StorageService } from "./storage.js";
+import type { MailService } from "./mail.js";
+import type { CheckCredentials } from "../commands/credentialChecker.js";
+
+/** Settings the app reads at run time (already validated). */
+export interface AppSettings {
+  appUrl: string;
+  sessionSecret: string;
+  sessionIdleMinutes: number;
+  lockoutThreshold: number;
+  uploadMaxBytes: number;
+  secureCookie: boolean;
+  signInPerMinute: number;
+  mailDir?: string;
+  webDist?: string;
+}
+
+/** What the Express app is built from; index.ts and the tests each assemble one. */
+export interface AppServices {
+  settings: AppSettings;
+  pool: pg.Pool;
+  db: Db;
+  storage: StorageService;
+  mail: MailService;
+  log: Logger;
+}
+
+/** What each route module receives. */
+export interface RouteContext extends AppServices {
+  checkCredentials: CheckCredentials;
+}
