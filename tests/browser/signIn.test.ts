@@ -1,0 +1,67 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import type { Server } from "node:http";
+import { startTestApp, type TestApp } from "../support/testApp.js";
+import { buildPerson, type BuiltPerson } from "../factories.js";
+import { ensureWebBuilt, launchChromium, listen, webDist } from "../support/browser.js";
+
+let t: TestApp;
+let browser: Browser;
+let server: Server;
+let base: string;
+let operator: BuiltPerson;
+
+beforeAll(async () => {
+  await ensureWebBuilt();
+  t = await startTestApp({ settings: { webDist } });
+  operator = await buildPerson(t.database.db, { roles: ["operator"], name: "Browser Operator" });
+  ({ url: base, server } = await listen(t.app));
+  browser = await launchChromium();
+}, 180_000);
+
+afterAll(async () => {
+  await browser?.close();
+  server?.close();
+  await t?.close();
+});
+
+describe("signing in from the browser", () => {
+  it("signs the operator in, shows the operator home, and signs out", async () => {
+    const page = await browser.newPage();
+    const failures: string[] = [];
+    page.on("pageerror", (e) => failures.push(e.message));
+    await page.goto(base + "/");
+    await page.getByLabel("Email").fill(operator.email);
+    await page.getByLabel("Password").fill(operator.password);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByRole("heading", { name: /Operator/ }).first().waitFor({ timeout: 15_000 });
+    expect(page.url()).toContain("/operator");
+    expect(await page.getByText("Browser Operator").first().isVisible()).toBe(true);
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.getByRole("button", { name: "Sign in" }).waitFor({ timeout: 15_000 });
+    expect(page.url()).toContain("/sign-in");
+    expect(failures).toEqual([]);
+    await page.close();
+  });
+
+  it("says why a wrong password is refused", async () => {
+    const page = await browser.newPage();
+    await page.goto(base + "/sign-in");
+    await page.getByLabel("Email").fill(operator.email);
+    await page.getByLabel("Password").fill("this is not it");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByText(/email or password is not right/i).waitFor({ timeout: 15_000 });
+    await page.close();
+  });
+
+  it("serves the page and its bundled font from the same origin", async () => {
+    const page = await browser.newPage();
+    const fonts: string[] = [];
+    page.on("response", (r) => r.url().match(/\.woff2?($|\?)/) && fonts.push(r.url()));
+    await page.goto(base + "/sign-in");
+    await page.evaluate(() => document.fonts.ready);
+    expect(fonts.length).toBeGreaterThan(0);
+    expect(fonts.every((f) => f.startsWith(base))).toBe(true);
+    await page.close();
+  });
+});

@@ -1,0 +1,52 @@
+import type { ComponentType } from "react";
+import { createBrowserRouter, RouterProvider, type RouteObject } from "react-router";
+import type { Role } from "./api/types";
+import { AppShell } from "./components/AppShell";
+import { RouteError } from "./components/ErrorBoundary";
+import { HomeRedirect } from "./components/HomeRedirect";
+import { RequireRole } from "./components/RequireRole";
+import ChangePassword from "./routes/ChangePassword";
+import NotFound from "./routes/NotFound";
+import SignIn from "./routes/SignIn";
+
+type ScreenModule = { default: ComponentType };
+
+// Role screens load on first visit, so signing in on a tablet fetches only what it needs.
+function screen(load: () => Promise<ScreenModule>): RouteObject["lazy"] {
+  return async () => ({ Component: (await load()).default });
+}
+
+function roleArea(role: Role, children: RouteObject[]): RouteObject {
+  return { element: <RequireRole role={role} />, children };
+}
+
+const routes: RouteObject[] = [
+  { path: "/sign-in", element: <SignIn />, errorElement: <RouteError /> },
+  {
+    path: "/",
+    element: <AppShell />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, element: <HomeRedirect /> },
+      { path: "change-password", element: <ChangePassword /> },
+      roleArea("operator", [{ path: "operator", lazy: screen(() => import("./routes/OperatorHome")) }]),
+      roleArea("supervisor", [{ path: "supervisor", lazy: screen(() => import("./routes/SupervisorHome")) }]),
+      roleArea("quality", [{ path: "quality", lazy: screen(() => import("./routes/QualityHome")) }]),
+      roleArea("engineer", [{ path: "engineer", lazy: screen(() => import("./routes/EngineerHome")) }]),
+      roleArea("admin", [
+        { path: "admin", lazy: screen(() => import("./routes/AdminHome")) },
+        { path: "admin/people", lazy: screen(() => import("./routes/AdminPeople")) },
+        { path: "admin/mail", lazy: screen(() => import("./routes/AdminMail")) },
+      ]),
+    ],
+  },
+  { path: "*", element: <NotFound />, errorElement: <RouteError /> },
+];
+
+/** The app's router: sign-in, the signed-in shell with each role's screens, and a 404. */
+export const router = createBrowserRouter(routes);
+
+/** The routed app. */
+export default function App() {
+  return <RouterProvider router={router} />;
+}
