@@ -14,6 +14,10 @@ import { peopleRoutes } from "./routes/people/people.js";
 import { fileRoutes } from "./routes/files/files.js";
 import { mailRoutes } from "./routes/mail/mail.js";
 import { auditRoutes } from "./routes/audit/audit.js";
+import { vesselRoutes } from "./routes/vessels/vessels.js";
+import { rateModelRoutes } from "./routes/rateModels/rateModels.js";
+import { masterRecordRoutes } from "./routes/masterRecords/masterRecords.js";
+import { campaignRoutes } from "./routes/campaigns/campaigns.js";
 
 export interface BuiltApp {
   app: Express;
@@ -56,7 +60,19 @@ export function createApp(services: AppServices): BuiltApp {
   const sessions = sessionMiddleware({ pool: services.pool, db: services.db, secret: settings.sessionSecret, idleMinutes: settings.sessionIdleMinutes, secureCookie: settings.secureCookie, checkCredentials });
   app.use("/api", ...sessions.handlers);
 
-  for (const r of [healthRoutes(ctx, routes), sessionRoutes(ctx, routes, sessions.passport), peopleRoutes(ctx, routes), fileRoutes(ctx, routes), mailRoutes(ctx, routes), auditRoutes(ctx, routes)]) {
+  const routers = [
+    healthRoutes(ctx, routes),
+    sessionRoutes(ctx, routes, sessions.passport),
+    peopleRoutes(ctx, routes),
+    fileRoutes(ctx, routes),
+    mailRoutes(ctx, routes),
+    auditRoutes(ctx, routes),
+    vesselRoutes(ctx, routes),
+    rateModelRoutes(ctx, routes),
+    masterRecordRoutes(ctx, routes),
+    campaignRoutes(ctx, routes),
+  ];
+  for (const r of routers) {
     app.use(r.mountPath, r.router);
   }
   app.use("/api", notFoundRoute);

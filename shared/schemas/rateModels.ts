@@ -1,0 +1,64 @@
+import { z } from "zod";
+import { finite, positive } from "./common.js";
+import { ReasonSchema } from "./people.js";
+
+const Species = z.string({ error: "is required" }).trim().min(1, "is required").max(40, "is too long");
+const Participant = z.object({
+  species: Species,
+  coefficient: positive("must be a positive stoichiometric coefficient"),
+  phase: z.enum(["gas", "liquid", "solid"], { error: "must be gas, liquid or solid" }),
+});
+
+/** What the engineer writes in a rate-model draft; εA is derived from reaction and feed. */
+export const RateModelContentSchema = z.object({
+  reaction: z.object({
+    reactants: z.array(Participant).min(1, "needs at least one reactant").max(10),
+    products: z.array(Participant).min(1, "needs at least one product").max(10),
+  }),
+  keySpecies: Species,
+  feed: z.record(Species, finite("must be a mole fraction")),
+  order: finite("must be a number").refine((n) => n >= 0 && n <= 4, "must be between 0 and 4"),
+  kRef: positive("must be a positive rate constant"),
+  TRefK: positive("must be a temperature in kelvin").refine((t) => t > 150 && t < 1500, "must be between 150 K and 1500 K"),
+  EaJPerMol: finite().refine((e) => e >= 0 && e <= 500_000, "must be between 0 and 500 000 J/mol"),
+  tolerancePct: positive().refine((v) => v <= 100, "must be at most 100 %"),
+  residualRmsMaxL: positive(),
+  temperatureBandK: positive().refine((v) => v <= 50, "must be at most 50 K"),
+  pressureBandPct: positive().refine((v) => v <= 50, "must be at most 50 %"),
+  notes: z.string().trim().max(4000).optional().default(""),
+});
+export type RateModelContent = z.infer<typeof RateModelContentSchema>;
+
+export const RateModelCreateSchema = z.object({
+  code: z.string({ error: "is required" }).trim().min(2, "is required").max(40).regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, "may hold letters, digits, dots, hyphens and underscores"),
+  title: z.string({ error: "is required" }).trim().min(3, "must say what the model is for").max(200),
+  content: RateModelContentSchema,
+});
+export const RateModelDraftSchema = z.object({ content: RateModelContentSchema });
+export const RateModelDraftUpdateSchema = z.object({ content: RateModelContentSchema, reason: ReasonSchema, revision: z.number().int() });
+
+/** The unit of k for order n (concentration in mol/L, time in s). */
+export function rateConstantUnit(order: number): string {
+  if (order === 1) return "1/s";
+  if (order === 0) return "mol/(L·s)";
+  if (order === 2) return "L/(mol·s)";
+  return `(mol/L)^${+(1 - order).toFixed(3)}/s`;
+}
+
+export interface RateModelVersionView {
+  id: string;
+  modelId: string;
+  code: string;
+  title: string;
+  version: number;
+  status: "draft" | "approved" | "superseded";
+  content: RateModelContent;
+  derived: { epsilonA: number; delta: number; yA0: number; kUnit: string };
+  basedOnBatchIds: string[];
+  createdBy: { id: string; name: string };
+  createdAt: string;
+  approvedAt: string | null;
+  revision: number;
+  signatures: import("./common.js").SignatureView[];
+  abilities: { edit: boolean; approve: boolean; succeed: boolean };
+}
