@@ -3,6 +3,17 @@ import type { Db } from "../server/db/client.js";
 import { people } from "../server/db/schema.js";
 import { hashPassword } from "../server/commands/passwords.js";
 import type { Role } from "../shared/schemas/roles.js";
+import { createVesselRegistrar } from "../server/commands/vesselRegistrar.js";
+import { createVersionedDocuments } from "../server/commands/versionedDocuments.js";
+import { rateModelKind } from "../server/commands/rateModelKind.js";
+import { masterRecordKind } from "../server/commands/masterRecordKind.js";
+import { createBatchPlanner } from "../server/commands/batchPlanner.js";
+import { createCredentialChecker } from "../server/commands/credentialChecker.js";
+import type { MailService } from "../server/services/mail.js";
+import type { SignedInPerson } from "../server/policies/access.js";
+import { DEMO_MASTER_RECORD, DEMO_RATE_MODEL, DEMO_VESSELS } from "../server/db/demoScenario.js";
+import type { VesselInput } from "../shared/schemas/vessels.js";
+import type { RateModelContent } from "../shared/schemas/rateModels.js";
 
 export const TEST_PASSWORD = "correct horse battery";
 // Cheap hashes keep the suite quick; the scheme and code path are the production ones.
@@ -25,4 +36,42 @@ export async function buildPerson(db: Db, overrides: Partial<typeof people.$infe
     .values({ email: `person-${tag}@test.example`, name: `Test Person ${tag}`, roles: ["operator"], passwordHash: await hashPassword(password, cheap), ...rest })
     .returning();
   return { id: row.id, email: row.email, name: row.name, roles: row.roles as Role[], password };
+}
+
+
+const asSigner = (p: BuiltPerson): SignedInPerson => ({ id: p.id, email: p.email, name: p.name, roles: p.roles, mustChangePassword: false });
+const noMail = { enqueue: async () => undefined } as unknown as MailService;
+const checker = (db: Db) => createCredentialChecker({ db, mail: noMail, lockoutThreshold: 100, appUrl: "" });
+const tag = () => randomUUID().slice(0, 8).toUpperCase();
+
+/** A registered vessel (by default the demo's 40 L pilot vessel under a fresh tag). */
+export async function buildVessel(db: Db, overrides: Partial<VesselInput> = {}) {
+  const engineer = await buildPerson(db, { roles: ["engineer"] });
+  return createVesselRegistrar(db).register(asSigner(engineer), { ...DEMO_VESSELS[1], tag: `V-${tag()}`, ...overrides });
+}
+
+/** An approved rate-model version (drafted by one engineer, approved by one quality person). */
+export async function buildApprovedRateModel(db: Db, content: Partial<RateModelContent> = {}) {
+  const engineer = await buildPerson(db, { roles: ["engineer"] });
+  const quality = await buildPerson(db, { roles: ["quality"] });
+  const docs = createVersionedDocuments(db, checker(db), rateModelKind);
+  const draft = await docs.createFamily(asSigner(engineer), { code: `RM-${tag()}`, title: "Test rate model", content: { ...DEMO_RATE_MODEL.content, ...content } });
+  return docs.approve(asSigner(quality), draft.id, quality.password);
+}
+
+/** An approved master-record version. */
+export async function buildApprovedMasterRecord(db: Db) {
+  const engineer = await buildPerson(db, { roles: ["engineer"] });
+  const quality = await buildPerson(db, { roles: ["quality"] });
+  const docs = createVersionedDocuments(db, checker(db), masterRecordKind);
+  const draft = await docs.createFamily(asSigner(engineer), { code: `MR-${tag()}`, title: "Test master record", content: DEMO_MASTER_RECORD.content });
+  return docs.approve(asSigner(quality), draft.id, quality.password);
+}
+
+/** A campaign on freshly approved versions. */
+export async function buildCampaign(db: Db, model: Partial<RateModelContent> = {}) {
+  const engineer = await buildPerson(db, { roles: ["engineer"] });
+  const [rateModel, masterRecord] = [await buildApprovedRateModel(db, model), await buildApprovedMasterRecord(db)];
+  const campaign = await createBatchPlanner(db).createCampaign(asSigner(engineer), { code: `C-${tag()}`, process: "test process", masterRecordVersionId: masterRecord.id, rateModelVersionId: rateModel.id });
+  return { campaign, rateModel, masterRecord };
 }

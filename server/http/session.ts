@@ -78,7 +78,6 @@ function idleTimeout(idleMs: number): RequestHandler {
     if (signedIn && s.lastSeenAt && now - s.lastSeenAt > idleMs) {
       delete (s as { passport?: unknown }).passport;
       s.expiredAt = now;
-      s.csrfToken = undefined;
     }
     if (signedIn) s.lastSeenAt = now;
     next();

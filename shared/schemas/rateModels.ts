@@ -22,7 +22,8 @@ export const RateModelContentSchema = z.object({
   TRefK: positive("must be a temperature in kelvin").refine((t) => t > 150 && t < 1500, "must be between 150 K and 1500 K"),
   EaJPerMol: finite().refine((e) => e >= 0 && e <= 500_000, "must be between 0 and 500 000 J/mol"),
   tolerancePct: positive().refine((v) => v <= 100, "must be at most 100 %"),
-  residualRmsMaxL: positive(),
+  /** The largest residual RMS accepted, as a percentage of V0 so one model serves every scale. */
+  residualRmsMaxPctOfV0: positive().refine((v) => v <= 50, "must be at most 50 % of V0"),
   temperatureBandK: positive().refine((v) => v <= 50, "must be at most 50 K"),
   pressureBandPct: positive().refine((v) => v <= 50, "must be at most 50 %"),
   notes: z.string().trim().max(4000).optional().default(""),
