@@ -1,0 +1,114 @@
+import { t95 } from "./studentT.js";
+
+export interface OriginLineFit {
+  slope: number;
+  slopeStdError: number;
+  slopeCI95: [number, number];
+  residualStdDev: number;
+  /** Uncentred R² (1 − SSR/Σy²), the usual figure for a line forced through the origin. */
+  r2: number;
+  points: number;
+}
+
+export interface LineFit {
+  slope: number;
+  intercept: number;
+  slopeStdError: number;
+  interceptStdError: number;
+  slopeCI95: [number, number];
+  interceptCI95: [number, number];
+  /** Covariance of slope and intercept. */
+  covariance: number;
+  residualStdDev: number;
+  r2: number;
+  points: number;
+}
+
+/** Least-squares straight line through the origin, y = b·x (optionally weighted). */
+export function fitLineThroughOrigin(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  weights?: ArrayLike<number>,
+): OriginLineFit {
+  const n = x.length;
+  let sxx = 0;
+  let sxy = 0;
+  for (let i = 0; i < n; i++) {
+    const w = weights === undefined ? 1 : weights[i];
+    sxx += w * x[i] * x[i];
+    sxy += w * x[i] * y[i];
+  }
+  const slope = sxy / sxx;
+  let ssr = 0;
+  let syy = 0;
+  for (let i = 0; i < n; i++) {
+    const w = weights === undefined ? 1 : weights[i];
+    const r = y[i] - slope * x[i];
+    ssr += w * r * r;
+    syy += w * y[i] * y[i];
+  }
+  const dof = n - 1;
+  const residualStdDev = dof > 0 ? Math.sqrt(ssr / dof) : Number.NaN;
+  const slopeStdError = residualStdDev / Math.sqrt(sxx);
+  const half = dof > 0 ? t95(dof) * slopeStdError : Number.NaN;
+  return {
+    slope,
+    slopeStdError,
+    slopeCI95: [slope - half, slope + half],
+    residualStdDev,
+    r2: 1 - ssr / syy,
+    points: n,
+  };
+}
+
+/** Least-squares straight line y = a + b·x (optionally weighted), with 95 % intervals. */
+export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, weights?: ArrayLike<number>): LineFit {
+  const n = x.length;
+  let sw = 0;
+  let swx = 0;
+  let swy = 0;
+  for (let i = 0; i < n; i++) {
+    const w = weights === undefined ? 1 : weights[i];
+    sw += w;
+    swx += w * x[i];
+    swy += w * y[i];
+  }
+  const mx = swx / sw;
+  const my = swy / sw;
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  for (let i = 0; i < n; i++) {
+    const w = weights === undefined ? 1 : weights[i];
+    const dx = x[i] - mx;
+    const dy = y[i] - my;
+    sxx += w * dx * dx;
+    sxy += w * dx * dy;
+    syy += w * dy * dy;
+  }
+  const slope = sxy / sxx;
+  const intercept = my - slope * mx;
+  let ssr = 0;
+  for (let i = 0; i < n; i++) {
+    const w = weights === undefined ? 1 : weights[i];
+    const r = y[i] - intercept - slope * x[i];
+    ssr += w * r * r;
+  }
+  const dof = n - 2;
+  const variance = dof > 0 ? ssr / dof : Number.NaN;
+  const slopeStdError = Math.sqrt(variance / sxx);
+  const interceptStdError = Math.sqrt(variance * (1 / sw + (mx * mx) / sxx));
+  const t = dof > 0 ? t95(dof) : Number.NaN;
+  return {
+    slope,
+    intercept,
+    slopeStdError,
+    interceptStdError,
+    slopeCI95: [slope - t * slopeStdError, slope + t * slopeStdError],
+    interceptCI95: [intercept - t * interceptStdError, intercept + t * interceptStdError],
+    covariance: (-mx * variance) / sxx,
+    residualStdDev: Math.sqrt(variance),
+    r2: 1 - ssr / syy,
+    points: n,
+  };
+}

@@ -1,0 +1,3 @@
+export * from "./unitCatalog.js";
+export * from "./convert.js";
+export * from "./parseUnit.js";

@@ -1,0 +1,48 @@
+import { describe, expect, it } from "vitest";
+import { createFirstOrderRiseModel, levenbergMarquardt } from "../../../shared/kinetics/index";
+
+// NIST Statistical Reference Datasets, nonlinear regression, Misra1a: y = b1·(1 − exp(−b2·x)).
+const MISRA1A: [number, number][] = [
+  [77.6, 10.07], [114.9, 14.73], [141.1, 17.94], [190.8, 23.93], [239.9, 29.61], [289.0, 35.18], [332.8, 40.02],
+  [378.4, 44.82], [434.8, 50.76], [477.3, 55.05], [536.8, 61.01], [593.1, 66.4], [689.1, 75.47], [760.0, 81.78],
+];
+const x = MISRA1A.map(([xi]) => xi);
+const y = MISRA1A.map(([, yi]) => yi);
+const CERTIFIED_B1 = 2.3894212918e2;
+const CERTIFIED_B2 = 5.5015643181e-4;
+// Certified residual sum of squares (from memory; confirmed below by recomputing it at the certified values).
+const CERTIFIED_RSS = 1.2455138894e-1;
+
+function relative(a: number, b: number): number {
+  return Math.abs(a - b) / Math.abs(b);
+}
+
+describe("Levenberg–Marquardt on NIST StRD Misra1a", () => {
+  it("the certified residual sum of squares matches the certified parameters", () => {
+    let rss = 0;
+    for (let i = 0; i < x.length; i++) {
+      const r = y[i] - CERTIFIED_B1 * (1 - Math.exp(-CERTIFIED_B2 * x[i]));
+      rss += r * r;
+    }
+    expect(relative(rss, CERTIFIED_RSS)).toBeLessThan(1e-9);
+  });
+
+  it.each([
+    ["NIST start 1", [500, 1e-4]],
+    ["NIST start 2", [250, 5e-4]],
+  ])("reproduces b1 and b2 to at least 6 significant digits from %s", (_name, initial) => {
+    const result = levenbergMarquardt(createFirstOrderRiseModel(x, y), { initial });
+    expect(result.converged).toBe(true);
+    expect(relative(result.params[0], CERTIFIED_B1)).toBeLessThan(5e-7);
+    expect(relative(result.params[1], CERTIFIED_B2)).toBeLessThan(5e-7);
+    expect(relative(result.residualSumSquares, CERTIFIED_RSS)).toBeLessThan(1e-8);
+  });
+
+  it("gives the certified standard deviations of b1 and b2 (NIST StRD Misra1a certified: 2.7070075241E+00, 7.2668688436E−06; from memory)", () => {
+    const result = levenbergMarquardt(createFirstOrderRiseModel(x, y), { initial: [250, 5e-4] });
+    const variance = result.residualSumSquares / (x.length - 2);
+    const inverse = result.inverseNormalMatrix as Float64Array;
+    expect(relative(Math.sqrt(variance * inverse[0]), 2.7070075241)).toBeLessThan(1e-6);
+    expect(relative(Math.sqrt(variance * inverse[3]), 7.2668688436e-6)).toBeLessThan(1e-6);
+  });
+});
