@@ -8,6 +8,8 @@ import type { RouteDeclaration } from "./http/policyRouter.js";
 import { errorHandler, notFoundRoute } from "./http/errors.js";
 import { sessionMiddleware } from "./http/session.js";
 import { createCredentialChecker } from "./commands/credentialChecker.js";
+import { createNotifier } from "./commands/notifier.js";
+import { createChangeFeed } from "./services/live.js";
 import { healthRoutes } from "./routes/health/health.js";
 import { sessionRoutes } from "./routes/session/session.js";
 import { peopleRoutes } from "./routes/people/people.js";
@@ -18,6 +20,11 @@ import { vesselRoutes } from "./routes/vessels/vessels.js";
 import { rateModelRoutes } from "./routes/rateModels/rateModels.js";
 import { masterRecordRoutes } from "./routes/masterRecords/masterRecords.js";
 import { campaignRoutes } from "./routes/campaigns/campaigns.js";
+import { kineticsRoutes } from "./routes/kinetics/kinetics.js";
+import { batchRoutes } from "./routes/batches/batches.js";
+import { deviationRoutes } from "./routes/deviations/deviations.js";
+import { queueRoutes } from "./routes/queues/queues.js";
+import { liveRoutes } from "./routes/live/live.js";
 
 export interface BuiltApp {
   app: Express;
@@ -32,7 +39,8 @@ export function createApp(services: AppServices): BuiltApp {
   app.set("trust proxy", "loopback");
   app.disable("x-powered-by");
   const checkCredentials = createCredentialChecker({ db: services.db, mail: services.mail, lockoutThreshold: settings.lockoutThreshold, appUrl: settings.appUrl });
-  const ctx: RouteContext = { ...services, checkCredentials };
+  const changes = createChangeFeed(services.pool, log);
+  const ctx: RouteContext = { ...services, checkCredentials, notify: createNotifier(services.mail, settings.appUrl), changes };
   const routes: RouteDeclaration[] = [];
 
   app.use(
@@ -71,6 +79,11 @@ export function createApp(services: AppServices): BuiltApp {
     rateModelRoutes(ctx, routes),
     masterRecordRoutes(ctx, routes),
     campaignRoutes(ctx, routes),
+    kineticsRoutes(ctx, routes),
+    batchRoutes(ctx, routes),
+    deviationRoutes(ctx, routes),
+    queueRoutes(ctx, routes),
+    liveRoutes(ctx, routes),
   ];
   for (const r of routers) {
     app.use(r.mountPath, r.router);
@@ -84,5 +97,12 @@ export function createApp(services: AppServices): BuiltApp {
     app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(join(dist, "index.html")));
   }
   app.use(errorHandler(log));
-  return { app, routes, close: async () => sessions.close() };
+  return {
+    app,
+    routes,
+    close: async () => {
+      changes.close();
+      sessions.close();
+    },
+  };
 }

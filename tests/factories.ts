@@ -73,5 +73,13 @@ export async function buildCampaign(db: Db, model: Partial<RateModelContent> = {
   const engineer = await buildPerson(db, { roles: ["engineer"] });
   const [rateModel, masterRecord] = [await buildApprovedRateModel(db, model), await buildApprovedMasterRecord(db)];
   const campaign = await createBatchPlanner(db).createCampaign(asSigner(engineer), { code: `C-${tag()}`, process: "test process", masterRecordVersionId: masterRecord.id, rateModelVersionId: rateModel.id });
-  return { campaign, rateModel, masterRecord };
+  return { campaign, rateModel, masterRecord, engineer };
+}
+
+/** A planned batch of a fresh campaign in a fresh 40 L vessel (V0 22 L, 250 °C, 2.0 bar(a)). */
+export async function buildPlannedBatch(db: Db, opts: { model?: Partial<RateModelContent>; v0L?: number } = {}) {
+  const { campaign, rateModel, masterRecord, engineer } = await buildCampaign(db, opts.model);
+  const vessel = await buildVessel(db);
+  const batch = await createBatchPlanner(db).planBatch(asSigner(engineer), campaign.id, { code: `B-${tag()}`, vesselId: vessel.id, v0: { value: opts.v0L ?? 22, unit: "L" }, temperature: { value: 250, unit: "°C" }, pressure: { value: 2, unit: "bar(a)" } });
+  return { batch, campaign, vessel, rateModel, masterRecord, engineer };
 }

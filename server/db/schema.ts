@@ -3,3 +3,4 @@ export * from "./tables/foundation.js";
 export * from "./tables/signatures.js";
 export * from "./tables/masterData.js";
 export * from "./tables/campaigns.js";
+export * from "./tables/execution.js";

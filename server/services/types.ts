@@ -4,6 +4,8 @@ import type { Db } from "../db/client.js";
 import type { StorageService } from "./storage.js";
 import type { MailService } from "./mail.js";
 import type { CheckCredentials } from "../commands/credentialChecker.js";
+import type { Notifier } from "../commands/notifier.js";
+import type { ChangeFeed } from "./live.js";
 
 /** Settings the app reads at run time (already validated). */
 export interface AppSettings {
@@ -31,4 +33,6 @@ export interface AppServices {
 /** What each route module receives. */
 export interface RouteContext extends AppServices {
   checkCredentials: CheckCredentials;
+  notify: Notifier;
+  changes: ChangeFeed;
 }

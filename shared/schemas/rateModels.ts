@@ -38,13 +38,7 @@ export const RateModelCreateSchema = z.object({
 export const RateModelDraftSchema = z.object({ content: RateModelContentSchema });
 export const RateModelDraftUpdateSchema = z.object({ content: RateModelContentSchema, reason: ReasonSchema, revision: z.number().int() });
 
-/** The unit of k for order n (concentration in mol/L, time in s). */
-export function rateConstantUnit(order: number): string {
-  if (order === 1) return "1/s";
-  if (order === 0) return "mol/(L·s)";
-  if (order === 2) return "L/(mol·s)";
-  return `(mol/L)^${+(1 - order).toFixed(3)}/s`;
-}
+export { rateConstantUnit } from "../kinetics/fitResult.js";
 
 export interface RateModelVersionView {
   id: string;

@@ -27,6 +27,8 @@ export const batches = pgTable("batches", {
   entered: jsonb("entered").notNull(),
   plan: jsonb("plan").notNull(),
   state: text("state").notNull().default("planned"),
+  heldFrom: text("held_from"),
+  holdReason: text("hold_reason"),
   revision: integer("revision").notNull().default(1),
   createdBy: uuid("created_by").notNull().references(() => people.id),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
