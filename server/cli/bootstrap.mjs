@@ -22,16 +22,18 @@ function ensureNodeModules() {
   execFileSync("npm", ["ci", "--no-audit", "--no-fund"], { cwd: root, stdio: "inherit" });
 }
 
-function aptInstall(pkg) {
-  if (!isRoot) throw new Error(`Debian's ${pkg} package is needed: run \`apt-get install -y ${pkg}\` as root.`);
+function aptInstall(pkgs) {
+  if (!isRoot) throw new Error(`Debian packages are needed: run \`apt-get install -y ${pkgs.join(" ")}\` as root.`);
   const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
-  say(`installing Debian's ${pkg} (apt-get)…`);
+  say(`installing Debian's ${pkgs.join(", ")} (apt-get)…`);
   execFileSync("apt-get", ["update"], { stdio: "inherit", env });
-  execFileSync("apt-get", ["install", "-y", "--no-install-recommends", pkg], { stdio: "inherit", env });
+  execFileSync("apt-get", ["install", "-y", "--no-install-recommends", ...pkgs], { stdio: "inherit", env });
 }
 
-function ensureChromium() {
-  if (!existsSync("/usr/bin/chromium")) aptInstall("chromium");
+// The browser tests drive Debian's chromium; the executed-record test renders a PDF page with pdftoppm.
+function ensureTestTools() {
+  const missing = [["/usr/bin/chromium", "chromium"], ["/usr/bin/pdftoppm", "poppler-utils"]].filter(([file]) => !existsSync(file)).map(([, pkg]) => pkg);
+  if (missing.length) aptInstall(missing);
 }
 
 /** Runs a command in the foreground; the child gets Ctrl-C with the rest of the group. */
@@ -58,7 +60,7 @@ if (command === "start") {
   code = await run(bin("vite"), ["--strictPort"]);
   api.kill("SIGINT");
 } else if (command === "test") {
-  ensureChromium();
+  ensureTestTools();
   code = await run(bin("vitest"), ["run", ...rest]);
 } else {
   console.error(`unknown command "${command}": use start, dev or test`);

@@ -7,6 +7,7 @@ import { recordAudit, SYSTEM_ACTOR } from "./audit.js";
 import { raiseDeviation } from "./deviationRecorder.js";
 import type { Notifier } from "./notifier.js";
 import { combinedTrace } from "./batchTrace.js";
+import { runKineticsCheck } from "./kineticsGate.js";
 import { announce } from "../services/live.js";
 import { conflict, HttpError } from "../http/errors.js";
 import { createTraceCsvParser, type ParsedTrace } from "../../shared/kinetics/traceCsvParser.js";
@@ -84,7 +85,7 @@ export function createBatchFiles(deps: { db: Db; storage: StorageService; notify
       if (!parsed.ok) throw new HttpError(422, "trace-invalid", `The trace file has ${parsed.totalErrors} problem${parsed.totalErrors === 1 ? "" : "s"}: ${parsed.errors[0]?.message}`, "fileId", { problems: parsed.errors, totalProblems: parsed.totalErrors });
       return deps.db.transaction(async (tx) => {
         const record = await loadBatchRecord(tx, batchId, { forUpdate: true });
-        if (record.batch.state !== "running" && record.batch.state !== "sampling") throw conflict("wrong-phase", `Traces are added while the batch is running or sampling; it is ${record.batch.state}.`);
+        if (!["running", "sampling", "review"].includes(record.batch.state)) throw conflict("wrong-phase", `Traces are added while the batch is running, sampling or in review; it is ${record.batch.state}.`);
         const trace = parsed.trace;
         const [row] = await tx
           .insert(batchTraces)
@@ -93,6 +94,8 @@ export function createBatchFiles(deps: { db: Db; storage: StorageService; notify
         await recordAudit(tx, person, { action: "trace-added", entityType: "batch", entityId: batchId, after: { traceId: row.id, fileId: file.id, name: file.originalName, sha256: file.sha256, points: row.points } });
         const raised = await flagReadings(tx, deps.notify, record, trace);
         const band = await bandCheck(tx, record);
+        // In review the check has run on the earlier traces: a new trace makes it stale, so it runs again.
+        if (record.batch.state === "review") await runKineticsCheck(tx, deps.notify, await loadBatchRecord(tx, batchId), person);
         if (band.outside) {
           await deps.notify.toPerson(tx, record.campaign.createdBy, `Isobatch: ${record.batch.code} trace leaves the model`, `The trace of batch ${record.batch.code} is outside the approved rate model so far:\n${band.reasons.join("\n")}\n\n${deps.notify.link(batchId)}\n`);
         }

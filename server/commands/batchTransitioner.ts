@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import type { Db } from "../db/client.js";
+import type { Db, Tx } from "../db/client.js";
 import { batches } from "../db/schema.js";
 import { loadBatchRecord } from "./batchRecord.js";
 import { factsFor } from "./batchFacts.js";
@@ -23,6 +23,8 @@ export interface TransitionerDeps {
   check: CheckCredentials;
   notify: Notifier;
   gate?: KineticsGate;
+  /** Runs in the move's transaction once the new state is written (the kinetics check at review, the record at release). */
+  afterMove?: (tx: Tx, batchId: string, person: SignedInPerson, to: BatchState) => Promise<void>;
 }
 
 /**
@@ -40,7 +42,7 @@ export function createBatchTransitioner(deps: TransitionerDeps) {
       if (batch.revision !== input.revision) {
         throw conflict("stale-revision", `Someone moved this batch a moment ago: it is now ${batch.state} (revision ${batch.revision}). Look again before you act.`, { state: batch.state, revision: batch.revision });
       }
-      const gateFacts = deps.gate ? await deps.gate.factsFor(tx, record) : undefined;
+      const gateFacts = deps.gate ? await deps.gate.factsFor(tx, record, { verifyFiles: input.move === "RELEASE" }) : undefined;
       const facts = factsFor(record, person, gateFacts?.kinetics, gateFacts?.unreviewedExceptions);
       const decision = decideMove(batch.state as BatchState, (batch.heldFrom as HoldableState | null) ?? null, input.move, facts);
       if (!decision.allowed) {
@@ -59,6 +61,7 @@ export function createBatchTransitioner(deps: TransitionerDeps) {
         await recordSignature(tx, person, { meaning, entityType: "batch", entityId: batchId, content: { batchId, code: batch.code, move: input.move, from: batch.state, to: next.state, revision: updated.revision }, comment: input.comment ?? input.reason ?? null });
       }
       await recordAudit(tx, person, { action: `batch-${input.move.toLowerCase().replace(/_/g, "-")}`, entityType: "batch", entityId: batchId, before: { state: batch.state, heldFrom: batch.heldFrom, revision: batch.revision }, after: { state: next.state, heldFrom: next.heldFrom, revision: updated.revision }, reason: input.reason ?? input.comment ?? null });
+      await deps.afterMove?.(tx, batchId, person, next.state);
       await notifyMove(tx, deps.notify, input, batch.code, batchId, person);
       await announce(tx, { kind: "batch", id: batchId });
       return { state: updated.state, revision: updated.revision };
@@ -66,7 +69,7 @@ export function createBatchTransitioner(deps: TransitionerDeps) {
   };
 }
 
-async function notifyMove(tx: Parameters<Parameters<Db["transaction"]>[0]>[0], notify: Notifier, input: BatchEventInput, code: string, batchId: string, person: SignedInPerson) {
+async function notifyMove(tx: Tx, notify: Notifier, input: BatchEventInput, code: string, batchId: string, person: SignedInPerson) {
   if (input.move === "HOLD") {
     await notify.toRole(tx, "supervisor", `Isobatch: batch ${code} is on hold`, `${person.name} put batch ${code} on hold.\nReason: ${input.reason}\n\nResuming needs a supervisor's signature:\n${notify.link(batchId)}\n`);
   }

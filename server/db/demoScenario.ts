@@ -75,7 +75,10 @@ export const DEMO_MASTER_RECORD = {
         ] },
       ],
       release: [
-        { key: "handover", title: "Hand over for review", instructions: "Confirm the record is complete.", critical: false, fields: [{ kind: "text" as const, key: "summary", label: "Operator's summary", required: false }] },
+        { key: "releaseChecklist", title: "Release checklist", instructions: "Confirm the gas analysis and the executed record are complete before release.", critical: false, fields: [
+          { kind: "choice" as const, key: "analysisReviewed", label: "Gas analysis", choices: ["Reviewed, within specification", "Reviewed, outside specification"], required: true },
+          { kind: "text" as const, key: "notes", label: "Notes", required: false },
+        ] },
       ],
     },
   } satisfies MasterRecordContent,

@@ -4,3 +4,4 @@ export * from "./tables/signatures.js";
 export * from "./tables/masterData.js";
 export * from "./tables/campaigns.js";
 export * from "./tables/execution.js";
+export * from "./tables/review.js";

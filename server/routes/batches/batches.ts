@@ -18,16 +18,19 @@ import { BATCH_STATES } from "../../../shared/machines/batchMoves.js";
 import { predictVolume } from "../../../shared/kinetics/prediction.js";
 import { checkConditionsFor, modelKAt } from "../../../shared/execution/modelAtBatch.js";
 import { forecastTarget } from "../../../shared/execution/forecast.js";
-import type { KineticsGate } from "../../commands/kineticsGate.js";
+import { createBatchReviewer } from "../../commands/batchReviewer.js";
+import { reviewRoutes } from "./review.js";
 
 const ListQuery = z.object({ state: z.enum(BATCH_STATES).optional(), campaignId: z.uuid().optional() });
 const stepKey = (req: { params: Record<string, unknown> }) => String(req.params.stepKey).slice(0, 40);
 
 /** /api/batches: the batch page, its lifecycle moves, step entries, deviations, files, trace and samples. */
-export function batchRoutes(ctx: RouteContext, registry: RouteDeclaration[], gate?: KineticsGate) {
+export function batchRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
   const r = policyRouter("/api/batches", registry);
   const deps = { db: ctx.db, check: ctx.checkCredentials, notify: ctx.notify };
-  const applyMove = createBatchTransitioner({ ...deps, gate });
+  const reviewer = createBatchReviewer({ ...deps, storage: ctx.storage });
+  const gate = reviewer.gate;
+  const applyMove = createBatchTransitioner({ ...deps, gate, afterMove: reviewer.afterMove });
   const steps = createStepRecorder(deps);
   const deviationRecorder = createDeviationRecorder(deps);
   const filesOf = createBatchFiles({ db: ctx.db, storage: ctx.storage, notify: ctx.notify });
@@ -101,5 +104,6 @@ export function batchRoutes(ctx: RouteContext, registry: RouteDeclaration[], gat
     const forecast = forecastTarget({ trace, order: model.content.order, epsilonA: model.epsilonA, v0L: batch.v0L, cA0: conditions.cA0!, kModel, targetConversion: masterRecord.content.targetConversion });
     res.json({ trace: { t: trace.t, V: trace.V, T: trace.T ?? null, P: trace.P ?? null, files: trace.files }, predicted, kModel, forecast });
   });
+  reviewRoutes(r, ctx, reviewer, view);
   return r;
 }

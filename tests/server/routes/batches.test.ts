@@ -1,56 +1,35 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { startTestApp, Client, type TestApp } from "../../support/testApp.js";
-import { buildPerson, buildPlannedBatch, type BuiltPerson } from "../../factories.js";
+import { buildPlannedBatch } from "../../factories.js";
+import { BatchDriver, demoEntries, firstOrderCsv } from "../../support/batchDriver.js";
 import { auditEvents, batches, mailOutbox, people as peopleTable, stepEntries } from "../../../server/db/schema.js";
 import type { Role } from "../../../shared/schemas/roles.js";
 
 let t: TestApp;
-const people: Record<string, BuiltPerson> = {};
-const clients: Record<string, Client> = {};
+let d: BatchDriver;
+let people: BatchDriver["people"];
+let clients: BatchDriver["clients"];
 beforeAll(async () => {
   t = await startTestApp();
-  const roster: [string, Role[]][] = [["op", ["operator"]], ["op2", ["operator"]], ["sup", ["supervisor"]], ["sup2", ["supervisor"]], ["qa", ["quality"]], ["eng", ["engineer"]]];
-  for (const [name, roles] of roster) {
-    people[name] = await buildPerson(t.database.db, { roles, name: `Batch ${name}` });
-    clients[name] = new Client(t.app);
-    await clients[name].signIn(people[name].email, people[name].password);
-  }
+  d = new BatchDriver(t.app, t.database.db);
+  for (const [name, roles] of [["op", ["operator"]], ["op2", ["operator"]], ["sup", ["supervisor"]], ["sup2", ["supervisor"]], ["qa", ["quality"]], ["eng", ["engineer"]]] as [string, Role[]][]) await d.add(name, roles);
+  ({ people, clients } = d);
 });
 afterAll(() => t.close());
 
-const now = () => new Date().toISOString();
-const entries = {
-  reliefCheck: { values: { reliefStatus: "In service, tag current", leakTestPressure: 2.5 } },
-  chargeDmx: { values: { dmxLot: "DMX-L-0419", dmxMass: 119.0 } }, // 5.41 g per litre × 22 L
-  chargeN2: { values: { n2Mass: 8.5 } },
-  pressurise: { values: { temperature: 250.1, pressure: 2.0, startedAt: now() } },
-  runEnd: { values: { endedAt: now(), finalVolume: 36.9 } },
-  sampleGas: { values: { sampleId: "BULB-7", sampledAt: now() } },
-};
-
-async function move(c: Client, batchId: string, move: string, extra: object = {}) {
-  const current = await c.get(`/api/batches/${batchId}`);
-  return c.post(`/api/batches/${batchId}/events`, { move, revision: current.body.batch.revision, ...extra });
-}
-const perform = (who: string, batchId: string, stepKey: keyof typeof entries | string, body: object = entries[stepKey as keyof typeof entries]) =>
-  clients[who].post(`/api/batches/${batchId}/steps/${stepKey}/entries`, { comments: {}, ...body, password: people[who].password });
-const verify = (who: string, batchId: string, stepKey: string) => clients[who].post(`/api/batches/${batchId}/steps/${stepKey}/verify`, { password: people[who].password });
+const entries = demoEntries();
+const perform = (who: string, batchId: string, stepKey: string, body?: object) => d.perform(who, batchId, stepKey, body);
+const verify = (who: string, batchId: string, stepKey: string) => d.verify(who, batchId, stepKey);
 const step = (view: { steps: { key: string }[] }, key: string) => view.steps.find((s) => s.key === key) as any;
-
-/** Takes a planned batch through charging into running. */
-async function chargeAndRun(batchId: string) {
-  expect((await move(clients.op, batchId, "START_CHARGING")).status).toBe(200);
-  for (const key of ["reliefCheck", "chargeDmx", "chargeN2"]) expect((await perform("op", batchId, key)).status).toBe(201);
-  for (const key of ["reliefCheck", "chargeDmx"]) expect((await verify("sup", batchId, key)).status).toBe(200);
-  expect((await move(clients.op, batchId, "START_RUN")).status).toBe(200);
-}
+const chargeAndRun = (batchId: string) => d.chargeAndRun(batchId);
+const now = () => new Date().toISOString();
 
 describe("executing a batch", () => {
   it("charges with a critical step verified by a second person, and refuses to leave an incomplete phase", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    expect((await move(clients.eng, batch.id, "START_CHARGING")).body.error.refusals[0].code).toBe("role-missing");
-    expect((await move(clients.op, batch.id, "START_CHARGING")).status).toBe(200);
+    expect((await d.move("eng", batch.id, "START_CHARGING")).body.error.refusals[0].code).toBe("role-missing");
+    expect((await d.move("op", batch.id, "START_CHARGING")).status).toBe(200);
 
     const performed = await perform("op", batch.id, "reliefCheck");
     expect(performed.status).toBe(201);
@@ -60,7 +39,7 @@ describe("executing a batch", () => {
     const waiting = await t.database.db.select().from(mailOutbox).where(eq(mailOutbox.to, people.sup.email));
     expect(waiting.some((m) => m.subject.includes("waits for your verification") && m.textBody.includes(`/batches/${batch.id}`))).toBe(true);
 
-    const early = await move(clients.op, batch.id, "START_RUN");
+    const early = await d.move("op", batch.id, "START_RUN");
     expect(early.status).toBe(409);
     expect(early.body.error.refusals.map((r: { code: string }) => r.code)).toEqual(["phase-incomplete"]);
     expect(early.body.error.message).toMatch(/Confirm relief protection/);
@@ -74,7 +53,7 @@ describe("executing a batch", () => {
 
   it("never lets a person verify their own entry", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    await move(clients.op, batch.id, "START_CHARGING");
+    await d.move("op", batch.id, "START_CHARGING");
     expect((await perform("sup", batch.id, "reliefCheck")).status).toBe(201);
     const own = await verify("sup", batch.id, "reliefCheck");
     expect(own.status).toBe(403);
@@ -84,7 +63,7 @@ describe("executing a batch", () => {
 
   it("validates entries against the step's fields, scaled to V0, and accepts an out-of-limit value only with a comment", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    await move(clients.op, batch.id, "START_CHARGING");
+    await d.move("op", batch.id, "START_CHARGING");
     const wrongType = await perform("op", batch.id, "chargeDmx", { values: { dmxLot: "L1", dmxMass: "lots" } });
     expect(wrongType.status).toBe(400);
     expect(wrongType.body.error.field).toBe("values.dmxMass");
@@ -104,7 +83,7 @@ describe("executing a batch", () => {
 
   it("refuses a wrong signing password and records nothing", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    await move(clients.op, batch.id, "START_CHARGING");
+    await d.move("op", batch.id, "START_CHARGING");
     const res = await clients.op.post(`/api/batches/${batch.id}/steps/reliefCheck/entries`, { ...entries.reliefCheck, password: "not the password" });
     expect(res.status).toBe(422);
     expect(res.body.error.field).toBe("password");
@@ -115,7 +94,7 @@ describe("executing a batch", () => {
 
   it("corrects an entry as a new version with a reason; the old signatures stop matching and verification is needed again", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    await move(clients.op, batch.id, "START_CHARGING");
+    await d.move("op", batch.id, "START_CHARGING");
     await perform("op", batch.id, "chargeDmx");
     await verify("sup", batch.id, "chargeDmx");
     const noReason = await clients.op.post(`/api/batches/${batch.id}/steps/chargeDmx/corrections`, { values: { dmxLot: "DMX-L-0420", dmxMass: 119 }, password: people.op.password });
@@ -143,15 +122,15 @@ describe("executing a batch", () => {
   it("puts a batch on hold with a reason, mails the supervisors, and resumes only with a supervisor's signature", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
     await chargeAndRun(batch.id);
-    expect((await move(clients.op, batch.id, "HOLD")).body.error.field).toBe("reason");
-    const held = await move(clients.op, batch.id, "HOLD", { reason: "temperature controller alarm" });
+    expect((await d.move("op", batch.id, "HOLD")).body.error.field).toBe("reason");
+    const held = await d.move("op", batch.id, "HOLD", { reason: "temperature controller alarm" });
     expect(held.status).toBe(200);
     expect(held.body.batch).toMatchObject({ state: "held", heldFrom: "running", holdReason: "temperature controller alarm" });
     const mails = await t.database.db.select().from(mailOutbox).where(eq(mailOutbox.to, people.sup.email));
     expect(mails.some((m) => m.subject.includes(`${batch.code} is on hold`))).toBe(true);
-    expect((await move(clients.op, batch.id, "RESUME", { password: people.op.password })).status).toBe(403);
-    expect((await move(clients.sup, batch.id, "RESUME")).body.error.field).toBe("password");
-    const resumed = await move(clients.sup, batch.id, "RESUME", { password: people.sup.password, comment: "controller replaced" });
+    expect((await d.move("op", batch.id, "RESUME", { password: people.op.password })).status).toBe(403);
+    expect((await d.move("sup", batch.id, "RESUME")).body.error.field).toBe("password");
+    const resumed = await d.move("sup", batch.id, "RESUME", { password: people.sup.password, comment: "controller replaced" });
     expect(resumed.status).toBe(200);
     expect(resumed.body.batch.state).toBe("running");
   });
@@ -171,7 +150,7 @@ describe("executing a batch", () => {
 
   it("raises a deviation, has a supervisor investigate it and quality close it with a signature", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    await move(clients.op, batch.id, "START_CHARGING");
+    await d.move("op", batch.id, "START_CHARGING");
     const bad = await clients.op.post(`/api/batches/${batch.id}/deviations`, { title: "x", severity: "huge" });
     expect(bad.status).toBe(400);
     const raised = await clients.op.post(`/api/batches/${batch.id}/deviations`, { title: "Seal weeping", description: "Slight weep at the piston seal during the leak test.", severity: "major", stepKey: "reliefCheck" });
@@ -194,7 +173,7 @@ describe("executing a batch", () => {
 
   it("shows the person's queues: signatures due for supervisors", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    await move(clients.op, batch.id, "START_CHARGING");
+    await d.move("op", batch.id, "START_CHARGING");
     await perform("op", batch.id, "reliefCheck");
     const q = await clients.sup.get("/api/queues");
     expect(q.body.awaitingVerification.some((w: { batchId: string; stepKey: string }) => w.batchId === batch.id && w.stepKey === "reliefCheck")).toBe(true);
@@ -203,21 +182,12 @@ describe("executing a batch", () => {
 });
 
 describe("the trace, attachments and samples", () => {
-  // First-order rise at constant P and T: V = V0(1 + εA(1 − e^(−kt))) (common practice).
-  const csv = (k: number, V0: number, opts: { P?: (t: number) => number; n?: number } = {}) => {
-    const lines = ["time (s),volume (L),temperature (°C),pressure (bar(a))"];
-    for (let i = 0; i <= (opts.n ?? 60); i++) {
-      const time = i * 30;
-      lines.push(`${time},${(V0 * (1 + 0.7 * (1 - Math.exp(-k * time)))).toFixed(5)},250.0,${(opts.P?.(time) ?? 2.0).toFixed(4)}`);
-    }
-    return lines.join("\n") + "\n";
-  };
-  const upload = async (c: Client, text: string, name = "logger.csv") => (await c.agent.post("/api/files").set("X-CSRF-Token", c.csrf).attach("file", Buffer.from(text), name)).body.file;
+  const csv = firstOrderCsv;
 
   it("adds logger traces while running (each file adds, none replaces), with the forecast in words", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
     await chargeAndRun(batch.id);
-    const first = await upload(clients.op, csv(2.0e-3, 22, { n: 20 }));
+    const first = await d.upload("op", csv(2.0e-3, 22, { n: 20 }));
     const added = await clients.op.post(`/api/batches/${batch.id}/traces`, { fileId: first.id });
     expect(added.status).toBe(201);
     expect(added.body.trace).toMatchObject({ points: 21, outsideModel: false, deviationsRaised: [] });
@@ -226,7 +196,7 @@ describe("the trace, attachments and samples", () => {
     expect(trace.body.forecast.message).toMatch(/^Target conversion 0.95 expected in \d+ min ± \d+ min, from the trace so far/);
     // −ln(1 − 0.95)/k at k = 2.0e-3 1/s is 1497.9 s (first order, common practice).
     expect(trace.body.forecast.targetAtS).toBeCloseTo(-Math.log(0.05) / 2.0e-3, 0);
-    const second = await upload(clients.op, csv(2.0e-3, 22, { n: 60 }));
+    const second = await d.upload("op", csv(2.0e-3, 22, { n: 60 }));
     await clients.op.post(`/api/batches/${batch.id}/traces`, { fileId: second.id });
     const both = await clients.op.get(`/api/batches/${batch.id}`);
     expect(both.body.traces).toHaveLength(2);
@@ -236,7 +206,7 @@ describe("the trace, attachments and samples", () => {
   it("raises a deviation at once when the pressure passes the relief set pressure", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
     await chargeAndRun(batch.id);
-    const file = await upload(clients.op, csv(2.0e-3, 22, { P: (time) => (time === 300 ? 9.9 : 2.0) }));
+    const file = await d.upload("op", csv(2.0e-3, 22, { P: (time) => (time === 300 ? 9.9 : 2.0) }));
     const res = await clients.op.post(`/api/batches/${batch.id}/traces`, { fileId: file.id });
     expect(res.body.trace.deviationsRaised).toContain("relief-pressure");
     const view = await clients.op.get(`/api/batches/${batch.id}`);
@@ -246,7 +216,7 @@ describe("the trace, attachments and samples", () => {
   it("mails the batch's engineer when the trace leaves the model", async () => {
     const { batch, engineer } = await buildPlannedBatch(t.database.db);
     await chargeAndRun(batch.id);
-    const file = await upload(clients.op, csv(3.2e-3, 22)); // runs hot: k 60 % above the model
+    const file = await d.upload("op", csv(3.2e-3, 22)); // runs hot: k 60 % above the model
     const res = await clients.op.post(`/api/batches/${batch.id}/traces`, { fileId: file.id });
     expect(res.body.trace.outsideModel).toBe(true);
     const mails = await t.database.db.select().from(mailOutbox).where(eq(mailOutbox.to, engineer.email));
@@ -255,10 +225,10 @@ describe("the trace, attachments and samples", () => {
 
   it("refuses a malformed trace file with the line of each problem, and a trace before the run", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
-    const early = await upload(clients.op, csv(2.0e-3, 22));
+    const early = await d.upload("op", csv(2.0e-3, 22));
     expect((await clients.op.post(`/api/batches/${batch.id}/traces`, { fileId: early.id })).status).toBe(409);
     await chargeAndRun(batch.id);
-    const broken = await upload(clients.op, "time (s),volume (L)\n0,22\n30,abc\n30,22.5\n");
+    const broken = await d.upload("op", "time (s),volume (L)\n0,22\n30,abc\n30,22.5\n");
     const res = await clients.op.post(`/api/batches/${batch.id}/traces`, { fileId: broken.id });
     expect(res.status).toBe(422);
     expect(res.body.error.problems.map((p: { line: number }) => p.line)).toEqual(expect.arrayContaining([3]));
@@ -288,9 +258,9 @@ describe("the trace, attachments and samples", () => {
     expect((await perform("op", batch.id, "pressurise")).status).toBe(201);
     expect((await verify("sup", batch.id, "pressurise")).status).toBe(200);
     expect((await perform("op", batch.id, "runEnd")).status).toBe(201);
-    expect((await move(clients.op, batch.id, "START_SAMPLING")).status).toBe(200);
+    expect((await d.move("op", batch.id, "START_SAMPLING")).status).toBe(200);
     expect((await perform("op", batch.id, "sampleGas")).status).toBe(201);
-    const review = await move(clients.op, batch.id, "SUBMIT_FOR_REVIEW");
+    const review = await d.move("op", batch.id, "SUBMIT_FOR_REVIEW");
     expect(review.status).toBe(200);
     expect(review.body.batch.state).toBe("review");
     const mails = await t.database.db.select().from(mailOutbox).where(eq(mailOutbox.to, people.qa.email));
