@@ -77,9 +77,9 @@ export async function buildCampaign(db: Db, model: Partial<RateModelContent> = {
 }
 
 /** A planned batch of a fresh campaign in a fresh 40 L vessel (V0 22 L, 250 °C, 2.0 bar(a)). */
-export async function buildPlannedBatch(db: Db, opts: { model?: Partial<RateModelContent>; v0L?: number } = {}) {
-  const { campaign, rateModel, masterRecord, engineer } = await buildCampaign(db, opts.model);
+export async function buildPlannedBatch(db: Db, opts: { model?: Partial<RateModelContent>; v0L?: number; temperatureC?: number; campaign?: Awaited<ReturnType<typeof buildCampaign>> } = {}) {
+  const { campaign, rateModel, masterRecord, engineer } = opts.campaign ?? (await buildCampaign(db, opts.model));
   const vessel = await buildVessel(db);
-  const batch = await createBatchPlanner(db).planBatch(asSigner(engineer), campaign.id, { code: `B-${tag()}`, vesselId: vessel.id, v0: { value: opts.v0L ?? 22, unit: "L" }, temperature: { value: 250, unit: "°C" }, pressure: { value: 2, unit: "bar(a)" } });
+  const batch = await createBatchPlanner(db).planBatch(asSigner(engineer), campaign.id, { code: `B-${tag()}`, vesselId: vessel.id, v0: { value: opts.v0L ?? 22, unit: "L" }, temperature: { value: opts.temperatureC ?? 250, unit: "°C" }, pressure: { value: 2, unit: "bar(a)" } });
   return { batch, campaign, vessel, rateModel, masterRecord, engineer };
 }

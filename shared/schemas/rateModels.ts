@@ -57,3 +57,9 @@ export interface RateModelVersionView {
   signatures: import("./common.js").SignatureView[];
   abilities: { edit: boolean; approve: boolean; succeed: boolean };
 }
+
+/** A proposed update from released batches; `save` stores it as a draft version. */
+export const ModelProposalSchema = z.object({
+  batchIds: z.array(z.uuid({ error: "must be batch ids" }), { error: "must be a list of batch ids" }).min(2, "needs at least two released batches").max(50),
+  save: z.boolean().default(false),
+});

@@ -7,6 +7,7 @@ import { idParam } from "../../http/params.js";
 import { notFound } from "../../http/errors.js";
 import { batches, campaigns, masterRecordVersions, masterRecords, rateModelVersions, rateModels, vessels } from "../../db/schema.js";
 import { createBatchPlanner } from "../../commands/batchPlanner.js";
+import { campaignTrends } from "../../commands/campaignTrends.js";
 import { BatchPlanSchema, CampaignCreateSchema } from "../../../shared/schemas/campaigns.js";
 
 const planners = (p: SignedInPerson) => p.roles.includes("engineer") || p.roles.includes("supervisor");
@@ -56,6 +57,15 @@ export function campaignRoutes(ctx: RouteContext, registry: RouteDeclaration[]) 
   r.post("/:id/batches", allow("engineer", "supervisor"), validate(BatchPlanSchema), async (req, res) => {
     const row = await planner.planBatch(me(req), idParam(req), req.body);
     res.status(201).json({ batch: { id: row.id, code: row.code, state: row.state, plan: row.plan } });
+  });
+  r.get("/:id/trends", signedIn, async (req, res) => {
+    res.json(await campaignTrends(ctx.db, idParam(req)));
+  });
+  r.get("/:id/results.csv", signedIn, async (req, res) => {
+    const trends = await campaignTrends(ctx.db, idParam(req));
+    const rows = ["batch,vessel,v0 (L),state,temperature (K),k observed,k low 95%,k high 95%,k model at T,deviation (%),verdict"];
+    for (const b of trends.batches) rows.push([b.code, b.vesselTag, b.v0L, b.state, b.temperatureK.toFixed(3), b.check?.kObserved ?? "", b.check?.kObservedCI95[0] ?? "", b.check?.kObservedCI95[1] ?? "", b.kModelAtT, b.check?.deviationPct ?? "", b.check?.verdict ?? "not checked"].join(","));
+    res.set({ "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="${trends.campaign.code}-results.csv"` }).send(rows.join("\n") + "\n");
   });
   return r;
 }

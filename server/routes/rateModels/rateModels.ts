@@ -7,6 +7,8 @@ import { createVersionedDocuments, type VersionView } from "../../commands/versi
 import { rateModelKind } from "../../commands/rateModelKind.js";
 import { RateModelCreateSchema, RateModelDraftSchema, RateModelDraftUpdateSchema, rateConstantUnit, type RateModelContent, type RateModelVersionView } from "../../../shared/schemas/rateModels.js";
 import { SignatureSchema } from "../../../shared/schemas/common.js";
+import { ModelProposalSchema } from "../../../shared/schemas/rateModels.js";
+import { proposeModelUpdate } from "../../commands/modelProposer.js";
 
 /** The API's view of a rate-model version. */
 export function presentRateModel(v: VersionView<RateModelContent>): RateModelVersionView {
@@ -45,6 +47,10 @@ export function rateModelRoutes(ctx: RouteContext, registry: RouteDeclaration[])
   });
   r.post("/versions/:id/approve", allow("quality"), validate(SignatureSchema), async (req, res) => {
     res.json({ version: presentRateModel(await docs.approve(me(req), idParam(req), req.body.password, req.body.comment)) });
+  });
+  r.post("/versions/:id/proposal", allow("engineer"), validate(ModelProposalSchema), async (req, res) => {
+    const result = await proposeModelUpdate(ctx.db, docs, me(req), idParam(req), req.body.batchIds, req.body.save);
+    res.status(result.draft ? 201 : 200).json({ points: result.points, arrhenius: result.arrhenius, proposed: result.proposed, draft: result.draft ? presentRateModel(result.draft) : null });
   });
   return r;
 }

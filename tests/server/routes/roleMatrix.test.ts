@@ -27,7 +27,7 @@ const concrete = (path: string) => path.replace(/:[a-zA-Z]+/g, randomUUID());
 // The live stream never ends by itself: read its status, then hang up.
 const isStream = (path: string) => path === "/api/live";
 function call(c: Client, method: string, path: string) {
-  if (method === "get" && isStream(path)) return c.agent.get(path).buffer(false).parse((res, done) => { res.once("data", () => res.destroy()); res.once("close", () => done(null, null)); res.once("end", () => done(null, null)); });
+  if (method === "get" && isStream(path)) return c.agent.get(path).buffer(false).parse((res, done) => { res.once("data", () => (res as unknown as { destroy(): void }).destroy()); res.once("close", () => done(null, null)); res.once("end", () => done(null, null)); });
   return method === "get" ? c.get(path) : c.send(method as "post", path, {});
 }
 const isSignOut = (r: { method: string; path: string }) => r.method === "delete" && r.path === "/api/session";
