@@ -5,6 +5,8 @@ import { createDatabase, runMigrations } from "./db/client.js";
 import { seedDemo } from "./db/seed.js";
 import { seedDemoMasterData } from "./db/seedMasterData.js";
 import { createCredentialChecker } from "./commands/credentialChecker.js";
+import { createNotifier } from "./commands/notifier.js";
+import { seedDemoBatches } from "./db/seedDemoBatches.js";
 import { createStorageService } from "./services/storage.js";
 import { createMailService } from "./services/mail.js";
 import { createApp } from "./app.js";
@@ -30,14 +32,16 @@ export async function bootServer(env: Env, endpoints: Endpoints, log: Logger = p
   const database = createDatabase(endpoints.databaseUrl, (err) => log.warn({ err: err.message }, "database connection lost; the pool reconnects on the next request"), 20);
   await runMigrations(database.db);
   const mail = createMailService({ db: database.db, smtpUrl: endpoints.smtpUrl, from: env.MAIL_FROM, pollMs: env.MAIL_POLL_MS, log });
-  if (env.SEED_DEMO) {
-    const { created } = await seedDemo(database.db);
-    await seedDemoMasterData(database.db, createCredentialChecker({ db: database.db, mail, lockoutThreshold: env.LOCKOUT_THRESHOLD, appUrl: "" }));
-    if (created) log.info({ created }, "demo data seeded");
-  }
   const storage = createStorageService({ endpoint: endpoints.s3Endpoint, bucket: env.S3_BUCKET, region: env.S3_REGION, accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY });
   await storage.ensureBucket();
   const url = env.APP_URL ?? `http://${env.HOST}:${env.PORT}`;
+  if (env.SEED_DEMO) {
+    const { created } = await seedDemo(database.db);
+    const check = createCredentialChecker({ db: database.db, mail, lockoutThreshold: env.LOCKOUT_THRESHOLD, appUrl: url });
+    await seedDemoMasterData(database.db, check);
+    await seedDemoBatches(database.db, { storage, check, notify: createNotifier(mail, url), uploadMaxBytes: env.UPLOAD_MAX_BYTES });
+    if (created) log.info({ created }, "demo data seeded");
+  }
   const built = createApp({
     settings: {
       appUrl: url,

@@ -12,6 +12,8 @@ declare module "vitest" {
     s3Endpoint: string;
     smtpUrl: string;
     mailDir: string;
+    /** A second database for tests that need tables nobody else writes to (an empty outbox). */
+    isolatedDatabaseUrl: string;
   }
 }
 
@@ -24,6 +26,11 @@ export default async function setup(project: TestProject) {
   const database = createDatabase(services.databaseUrl);
   await runMigrations(database.db);
   await database.close();
+  const isolatedUrl = await services.postgres!.createDatabase("isobatch_isolated");
+  const isolated = createDatabase(isolatedUrl);
+  await runMigrations(isolated.db);
+  await isolated.close();
+  project.provide("isolatedDatabaseUrl", isolatedUrl);
   project.provide("databaseUrl", services.databaseUrl);
   project.provide("s3Endpoint", services.s3Endpoint);
   project.provide("smtpUrl", services.smtpUrl);

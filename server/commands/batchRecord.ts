@@ -31,20 +31,18 @@ export async function loadBatchRecord(db: DbOrTx, batchId: string, opts: { forUp
   const q = db.select().from(batches).where(eq(batches.id, batchId));
   const [batch] = opts.forUpdate ? await q.for("update") : await q;
   if (!batch) throw notFound("That batch");
-  const [[vessel], [campaign], [record], [model]] = await Promise.all([
-    db.select().from(vessels).where(eq(vessels.id, batch.vesselId)),
-    db.select().from(campaigns).where(eq(campaigns.id, batch.campaignId)),
-    db.select().from(masterRecordVersions).where(eq(masterRecordVersions.id, batch.masterRecordVersionId)),
-    db.select().from(rateModelVersions).where(eq(rateModelVersions.id, batch.rateModelVersionId)),
-  ]);
-  const [entries, stepSigs, devs, attachments, traces, samples] = await Promise.all([
-    db.select().from(stepEntries).where(eq(stepEntries.batchId, batchId)).orderBy(asc(stepEntries.stepKey), asc(stepEntries.version)),
-    db.select().from(signatures).where(and(eq(signatures.entityType, STEP_ENTITY), inArray(signatures.entityId, PHASES.flatMap((p) => (record.content as MasterRecordContent).phases[p].map((s) => stepEntityId(batchId, s.key)))))).orderBy(asc(signatures.signedAt)),
-    db.select().from(deviations).where(eq(deviations.batchId, batchId)).orderBy(asc(deviations.raisedAt)),
-    db.select({ a: batchAttachments, f: files }).from(batchAttachments).innerJoin(files, eq(files.id, batchAttachments.fileId)).where(eq(batchAttachments.batchId, batchId)).orderBy(asc(batchAttachments.addedAt)),
-    db.select({ id: batchTraces.id, fileId: batchTraces.fileId, sha256: batchTraces.sha256, points: batchTraces.points, addedBy: batchTraces.addedBy, addedAt: batchTraces.addedAt }).from(batchTraces).where(eq(batchTraces.batchId, batchId)).orderBy(asc(batchTraces.addedAt)),
-    db.select().from(batchSamples).where(eq(batchSamples.batchId, batchId)).orderBy(asc(batchSamples.sampledAt)),
-  ]);
+  // One query at a time: inside a transaction they share one connection.
+  const [vessel] = await db.select().from(vessels).where(eq(vessels.id, batch.vesselId));
+  const [campaign] = await db.select().from(campaigns).where(eq(campaigns.id, batch.campaignId));
+  const [record] = await db.select().from(masterRecordVersions).where(eq(masterRecordVersions.id, batch.masterRecordVersionId));
+  const [model] = await db.select().from(rateModelVersions).where(eq(rateModelVersions.id, batch.rateModelVersionId));
+  const entries = await db.select().from(stepEntries).where(eq(stepEntries.batchId, batchId)).orderBy(asc(stepEntries.stepKey), asc(stepEntries.version));
+  const stepIds = PHASES.flatMap((p) => (record.content as MasterRecordContent).phases[p].map((s) => stepEntityId(batchId, s.key)));
+  const stepSigs = stepIds.length ? await db.select().from(signatures).where(and(eq(signatures.entityType, STEP_ENTITY), inArray(signatures.entityId, stepIds))).orderBy(asc(signatures.signedAt)) : [];
+  const devs = await db.select().from(deviations).where(eq(deviations.batchId, batchId)).orderBy(asc(deviations.raisedAt));
+  const attachments = await db.select({ a: batchAttachments, f: files }).from(batchAttachments).innerJoin(files, eq(files.id, batchAttachments.fileId)).where(eq(batchAttachments.batchId, batchId)).orderBy(asc(batchAttachments.addedAt));
+  const traces = await db.select({ id: batchTraces.id, fileId: batchTraces.fileId, sha256: batchTraces.sha256, points: batchTraces.points, addedBy: batchTraces.addedBy, addedAt: batchTraces.addedAt }).from(batchTraces).where(eq(batchTraces.batchId, batchId)).orderBy(asc(batchTraces.addedAt));
+  const samples = await db.select().from(batchSamples).where(eq(batchSamples.batchId, batchId)).orderBy(asc(batchSamples.sampledAt));
   const content = record.content as MasterRecordContent;
   const steps: StepState[] = [];
   for (const phase of PHASES) {

@@ -32,8 +32,6 @@ export const DEMO_RATE_MODEL = {
   } satisfies RateModelContent,
 };
 
-/** The successor draft the engineer is working on. */
-export const DEMO_RATE_MODEL_DRAFT: RateModelContent = { ...DEMO_RATE_MODEL.content, tolerancePct: 8, notes: "Tighter tolerance proposed after the bench batches." };
 
 const num = (key: string, label: string, unit: string, low: number | null, high: number | null, perLitreV0 = false) => ({ kind: "number" as const, key, label, unit, low, high, perLitreV0, required: true });
 
@@ -86,14 +84,28 @@ export const DEMO_MASTER_RECORD = {
 
 export const DEMO_MASTER_RECORD_DRAFT: MasterRecordContent = { ...DEMO_MASTER_RECORD.content, targetConversion: 0.97 };
 
-const at = (v0: number): Omit<BatchPlanInput, "code" | "vesselId"> => ({ v0: { value: v0, unit: "L" }, temperature: { value: 250, unit: "°C" }, pressure: { value: 2, unit: "bar(a)" } });
+const at = (v0: number, celsius = 250): Omit<BatchPlanInput, "code" | "vesselId"> => ({ v0: { value: v0, unit: "L" }, temperature: { value: celsius, unit: "°C" }, pressure: { value: 2, unit: "bar(a)" } });
 
 export const DEMO_CAMPAIGN = {
   code: "HF-24",
   process: "DMX cracking to MON, scale-up from bench to plant",
   batches: [
-    ...["HF-24-B1", "HF-24-B2", "HF-24-B3"].map((code) => ({ code, vesselTag: "HF-BC-02", ...at(1.0) })),
+    // The bench batches ran at slightly different set points, which the model update uses.
+    ...([["HF-24-B1", 248.5], ["HF-24-B2", 250], ["HF-24-B3", 251.5]] as const).map(([code, c]) => ({ code, vesselTag: "HF-BC-02", ...at(1.0, c) })),
     ...["HF-24-P1", "HF-24-P2", "HF-24-P3"].map((code) => ({ code, vesselTag: "HF-PV-40", ...at(22) })),
     ...["HF-24-F1", "HF-24-F2", "HF-24-F3"].map((code) => ({ code, vesselTag: "HF-PV-600", ...at(330) })),
   ],
+};
+
+/**
+ * How far each demo batch has got. Traces are made from the model with a little noise; the hot
+ * pilot batch's jacket ran 6 K over its set point.
+ */
+export const DEMO_PROGRESS: Record<string, { to: "released" | "running" | "review" | "held"; traceFraction?: number; runHotK?: number; holdReason?: string; deviation?: { title: string; description: string; severity: "minor" | "major" | "critical" } }> = {
+  "HF-24-B1": { to: "released" },
+  "HF-24-B2": { to: "released" },
+  "HF-24-B3": { to: "released" },
+  "HF-24-P1": { to: "running", traceFraction: 0.5 },
+  "HF-24-P2": { to: "review", runHotK: 6, deviation: { title: "Jacket temperature overshoot", description: "The jacket controller overshot to about 256 °C during the first half of the run.", severity: "major" } },
+  "HF-24-P3": { to: "held", holdReason: "Piston seal weeping; waiting for maintenance", deviation: { title: "Piston seal weep", description: "A slight weep at the piston seal was seen after pressurising.", severity: "minor" } },
 };

@@ -9,7 +9,7 @@ import { createBatchPlanner } from "../commands/batchPlanner.js";
 import type { CheckCredentials } from "../commands/credentialChecker.js";
 import { toSignedInPerson } from "../http/session.js";
 import { DEMO_PASSWORD } from "./seed.js";
-import { DEMO_CAMPAIGN, DEMO_MASTER_RECORD, DEMO_MASTER_RECORD_DRAFT, DEMO_RATE_MODEL, DEMO_RATE_MODEL_DRAFT, DEMO_VESSELS } from "./demoScenario.js";
+import { DEMO_CAMPAIGN, DEMO_MASTER_RECORD, DEMO_MASTER_RECORD_DRAFT, DEMO_RATE_MODEL, DEMO_VESSELS } from "./demoScenario.js";
 
 /**
  * Seeds the demo's master data through the same commands people use: the engineer registers
@@ -32,7 +32,6 @@ export async function seedDemoMasterData(db: Db, check: CheckCredentials): Promi
   if (!(await db.query.rateModels.findFirst({ where: eq(rateModels.code, DEMO_RATE_MODEL.code) }))) {
     const v1 = await models.createFamily(engineer, DEMO_RATE_MODEL);
     await models.approve(quality, v1.id, DEMO_PASSWORD, "Approved for campaign HF-24 (demo).");
-    await models.createDraft(engineer, v1.familyId, DEMO_RATE_MODEL_DRAFT);
   }
   const records = createVersionedDocuments(db, check, masterRecordKind);
   if (!(await db.query.masterRecords.findFirst({ where: eq(masterRecords.code, DEMO_MASTER_RECORD.code) }))) {

@@ -8,6 +8,8 @@ export interface LocalPostgres {
   url: string;
   port: number;
   dataDir: string;
+  /** Creates another empty database owned by the same role and returns its URL. */
+  createDatabase(name: string): Promise<string>;
   stop(): Promise<void>;
 }
 
@@ -117,6 +119,16 @@ export async function startLocalPostgres(opts: LocalPostgresOptions): Promise<Lo
     url,
     port: opts.port,
     dataDir,
+    createDatabase: async (name: string) => {
+      const c = new pg.Client({ host: socketDir, port: opts.port, user: "postgres", database: "postgres" });
+      await c.connect();
+      try {
+        await c.query(`create database ${pg.escapeIdentifier(name)} owner ${pg.escapeIdentifier(opts.user)}`);
+      } finally {
+        await c.end();
+      }
+      return url.replace(/\/[^/]+$/, `/${encodeURIComponent(name)}`);
+    },
     stop: async () => {
       if (child.exitCode === null) child.kill("SIGINT"); // PostgreSQL's "fast" shutdown
       const timer = setTimeout(() => child.kill("SIGQUIT"), 8000);

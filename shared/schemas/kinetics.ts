@@ -26,6 +26,9 @@ export const TraceJsonSchema = z
   .object({ t: series("s"), V: series("L"), T: series("K").optional(), P: series("Pa").optional() })
   .superRefine((trace, ctx) => {
     const n = trace.t.length;
+    // As in a trace file: each time must come after the one before.
+    const back = trace.t.findIndex((s, i) => i > 0 && !(s > trace.t[i - 1]));
+    if (back > 0) ctx.addIssue({ code: "custom", path: ["t", back], message: `must increase: t[${back}] = ${trace.t[back]} s is not after t[${back - 1}] = ${trace.t[back - 1]} s` });
     for (const key of ["V", "T", "P"] as const) {
       const values = trace[key];
       if (values !== undefined && values.length !== n) {

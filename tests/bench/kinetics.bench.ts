@@ -1,8 +1,10 @@
-// Kinetics benchmark: prints timings and accuracy. Run: npx tsx tests/bench/kinetics.bench.ts
+// Kinetics benchmark: prints timings and accuracy.
+// Run: npx tsx tests/bench/kinetics.bench.ts — or without npm: node --import tsx tests/bench/kinetics.bench.ts
 import { levenbergMarquardt as mlLevenbergMarquardt } from "ml-levenberg-marquardt";
 import {
   checkTrace,
   createFirstOrderRiseModel,
+  fitLinearised,
   fitVolumes,
   initialConcentrationGas,
   levenbergMarquardt,
@@ -130,7 +132,39 @@ const accurate = (p5.ourErr <= (p5.mlErr as number) * (1 + 1e-9));
 console.log(`  at 1e5 at least 5× faster than ml-levenberg-marquardt: ${speedup.toFixed(1)}× — ${speedup >= 5 ? "met" : "MISSED"}`);
 console.log(`  at 1e5 equal or better accuracy: ours ${p5.ourErr.toExponential(3)}, ml ${(p5.mlErr as number).toExponential(3)} — ${accurate ? "met" : "MISSED"}`);
 
+closedFormRoute();
 misra1a();
+
+/** The closed-form route (straight-line fit and prediction) for n = 0, 1, 2 at 1e6 points. */
+function closedFormRoute(): void {
+  const points = 1e6;
+  const reps = 5;
+  const first = makeTrace(points, 1);
+  let sink = 0;
+  const plain = bestOf(reps * 3, () => { sink += sumOf(first.V); });
+  console.log(`\nClosed-form route at 1e6 points against a plain pass (${plain.toFixed(3)} ms; target within 10×)`);
+  console.log("  order  linearised fit  ×plain   prediction  ×plain   nonlinear fit (above)  ×plain");
+  const verdicts: string[] = [];
+  for (const order of [0, 1, 2]) {
+    const data = order === 1 ? first : makeTrace(points, order);
+    const setup = { order, V0, epsilonA: EPSILON, cA0: CA0 };
+    const line = bestOf(reps, () => { sink += fitLinearised(data, setup).k; });
+    const predict = bestOf(reps, () => { sink += predictVolume({ ...setup, k: data.k }, data.t)[points - 1]; });
+    const nonlinear = rows.get(points)!.fits[`n=${order}`];
+    const cell = (ms: number, width: number) => `${fmt(ms)} ms`.padStart(width);
+    console.log(`  n=${order}   ${cell(line, 13)} ${ratio(line, plain)}  ${cell(predict, 11)} ${ratio(predict, plain)}  ${cell(nonlinear, 20)} ${ratio(nonlinear, rows.get(points)!.plain)}`);
+    const verdict = (what: string, ms: number, base: number) => {
+      const r = ms / base;
+      verdicts.push(`  closed-form n=${order} ${what} at 1e6 within 10× a plain pass: ${r.toFixed(1)}× — ${r <= 10 ? "met" : "MISSED"}`);
+    };
+    verdict("linearised least-squares fit", line, plain);
+    verdict("prediction (predictVolume)", predict, plain);
+  }
+  console.log("  (the nonlinear column repeats the volume fit timed above, against that run's plain pass.)");
+  console.log("\nTargets, closed-form route");
+  for (const line of verdicts) console.log(line);
+  if (sink === 42) console.log("");
+}
 
 function misra1a(): void {
   // NIST StRD Misra1a, y = b1·(1 − exp(−b2·x)); certified b1 = 2.3894212918E+02, b2 = 5.5015643181E−04.

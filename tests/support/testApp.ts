@@ -24,12 +24,13 @@ export interface TestAppOptions {
   s3Endpoint?: string;
   smtpUrl?: string;
   bucket?: string;
+  databaseUrl?: string;
 }
 
 /** Builds the real app over the run's throw-away services; each test file makes its own. */
 export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
   const log = pino({ level: "silent" });
-  const database = createDatabase(inject("databaseUrl"));
+  const database = createDatabase(opts.databaseUrl ?? inject("databaseUrl"));
   const storage = createStorageService({ endpoint: opts.s3Endpoint ?? inject("s3Endpoint"), bucket: opts.bucket ?? "isobatch-test", region: "us-east-1", accessKeyId: "S3RVER", secretAccessKey: "S3RVER" });
   if (!opts.s3Endpoint) await storage.ensureBucket();
   const mail = createMailService({ db: database.db, smtpUrl: opts.smtpUrl ?? inject("smtpUrl"), from: "Isobatch <isobatch@harrowfen.example>", pollMs: 100_000, log });

@@ -5,6 +5,7 @@ import { AppShell } from "./components/AppShell";
 import { RouteError } from "./components/ErrorBoundary";
 import { HomeRedirect } from "./components/HomeRedirect";
 import { RequireRole } from "./components/RequireRole";
+import { LiveUpdates } from "./features/live/LiveUpdates";
 import ChangePassword from "./routes/ChangePassword";
 import NotFound from "./routes/NotFound";
 import SignIn from "./routes/SignIn";
@@ -29,6 +30,22 @@ const routes: RouteObject[] = [
     children: [
       { index: true, element: <HomeRedirect /> },
       { path: "change-password", element: <ChangePassword /> },
+      // Master data: everyone signed in may read; each screen offers actions per role.
+      { path: "vessels", lazy: screen(() => import("./routes/Vessels")) },
+      { path: "rate-models", lazy: screen(() => import("./routes/RateModels")) },
+      { path: "rate-models/new", lazy: screen(() => import("./routes/RateModelNew")) },
+      { path: "rate-models/versions/:versionId", lazy: screen(() => import("./routes/RateModelVersion")) },
+      { path: "rate-models/:modelId/compare", lazy: screen(() => import("./routes/RateModelCompare")) },
+      { path: "master-records", lazy: screen(() => import("./routes/MasterRecords")) },
+      { path: "master-records/new", lazy: screen(() => import("./routes/MasterRecordNew")) },
+      { path: "master-records/versions/:versionId", lazy: screen(() => import("./routes/MasterRecordVersion")) },
+      { path: "campaigns", lazy: screen(() => import("./routes/Campaigns")) },
+      { path: "campaigns/:campaignId", lazy: screen(() => import("./routes/CampaignDetail")) },
+      { path: "analysis", lazy: screen(() => import("./routes/KineticsAnalysis")) },
+      // Batch execution: everyone signed in may read; actions follow the person's roles.
+      { path: "batches", lazy: screen(() => import("./routes/Batches")) },
+      { path: "batches/:id", lazy: screen(() => import("./routes/BatchPage")) },
+      { path: "deviations", lazy: screen(() => import("./routes/Deviations")) },
       roleArea("operator", [{ path: "operator", lazy: screen(() => import("./routes/OperatorHome")) }]),
       roleArea("supervisor", [{ path: "supervisor", lazy: screen(() => import("./routes/SupervisorHome")) }]),
       roleArea("quality", [{ path: "quality", lazy: screen(() => import("./routes/QualityHome")) }]),
@@ -48,5 +65,9 @@ export const router = createBrowserRouter(routes);
 
 /** The routed app. */
 export default function App() {
-  return <RouterProvider router={router} />;
+  return (
+    <LiveUpdates>
+      <RouterProvider router={router} />
+    </LiveUpdates>
+  );
 }

@@ -245,10 +245,13 @@ describe("bad input is refused plainly, never with a 500", () => {
     expect(res.body.error.field).toBe("file");
   });
 
-  it("trace columns of different lengths and a non-positive model value name their fields", async () => {
+  it("ragged or backwards trace columns and values the kinetics cannot use name their fields", async () => {
     const ragged = await eng.post("/api/kinetics/fit", { trace: { t: [0, 1, 2], V: [40, 41] }, epsilonA: EPSILON, order: 1 });
     expect(ragged.status).toBe(400);
     expect(ragged.body.error.field).toBe("trace.V");
+    const backwards = await eng.post("/api/kinetics/fit", { trace: { t: [0, 10, 5], V: [40, 41, 42] }, epsilonA: EPSILON, order: 1 });
+    expect(backwards.status).toBe(400);
+    expect(backwards.body.error.field).toBe("trace.t.2");
     const zeroEpsilon = await eng.post("/api/kinetics/fit", { trace: { t: TIMES, V: volumes }, epsilonA: 0, order: 1 });
     expect(zeroEpsilon.status).toBe(422);
     expect(zeroEpsilon.body.error.field).toBe("epsilonA");

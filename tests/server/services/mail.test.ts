@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { readdirSync, readFileSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -8,7 +8,8 @@ import { startMailCatcher, type MailCatcher } from "../../../server/services/mai
 import { freePort } from "../../support/freePort.js";
 import { mailOutbox } from "../../../server/db/schema.js";
 
-// This file runs its own catcher so that stopping it affects no other test.
+// This file runs its own catcher so that stopping it affects no other test, and its own
+// database so that its outbox holds only its own messages.
 let t: TestApp;
 let catcher: MailCatcher;
 let port: number;
@@ -16,7 +17,7 @@ const dir = mkdtempSync(join(tmpdir(), "isobatch-mail-"));
 beforeAll(async () => {
   port = await freePort();
   catcher = await startMailCatcher(dir, port);
-  t = await startTestApp({ smtpUrl: `smtp://127.0.0.1:${port}` });
+  t = await startTestApp({ smtpUrl: `smtp://127.0.0.1:${port}`, databaseUrl: inject("isolatedDatabaseUrl") });
 });
 afterAll(async () => {
   await catcher.stop();

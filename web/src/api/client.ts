@@ -5,13 +5,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly field: string | undefined;
+  /** Everything else the server said (refusals, problems, the current state …). */
+  readonly details: Record<string, unknown>;
 
-  constructor(status: number, code: string, message: string, field?: string) {
+  constructor(status: number, code: string, message: string, field?: string, details: Record<string, unknown> = {}) {
     super(message);
     this.name = "ApiError";
     this.status = status;
     this.code = code;
     this.field = field;
+    this.details = details;
   }
 }
 
@@ -58,8 +61,8 @@ async function toApiError(response: Response): Promise<ApiError> {
     // Not JSON (a proxy error page, for instance): fall through to the generic error.
   }
   if (isErrorBody(parsed)) {
-    const { code, message, field } = parsed.error;
-    return new ApiError(response.status, code, message || "The request was refused.", field);
+    const { code, message, field, ...details } = parsed.error as typeof parsed.error & Record<string, unknown>;
+    return new ApiError(response.status, code, message || "The request was refused.", field, details);
   }
   return new ApiError(
     response.status,

@@ -7,6 +7,16 @@ const ADMIN_PAGES = [
   { to: "/admin/mail", label: "Mail" },
 ];
 
+const MASTER_DATA_PAGES: { to: string; label: string; roles: Role[] }[] = [
+  { to: "/batches", label: "Batches", roles: ["operator", "supervisor", "quality", "engineer"] },
+  { to: "/deviations", label: "Deviations", roles: ["operator", "supervisor", "quality", "engineer"] },
+  { to: "/vessels", label: "Vessels", roles: ["engineer", "quality", "supervisor"] },
+  { to: "/rate-models", label: "Rate models", roles: ["engineer", "quality"] },
+  { to: "/master-records", label: "Master records", roles: ["engineer", "quality", "supervisor"] },
+  { to: "/campaigns", label: "Campaigns", roles: ["engineer", "quality", "supervisor"] },
+  { to: "/analysis", label: "Kinetics analysis", roles: ["operator", "supervisor", "quality", "engineer", "admin"] },
+];
+
 function linkClass({ isActive }: { isActive: boolean }): string {
   return `flex min-h-11 items-center rounded-md px-3 font-semibold no-underline ${
     isActive
@@ -15,8 +25,9 @@ function linkClass({ isActive }: { isActive: boolean }): string {
   }`;
 }
 
-/** The list of the person's role homes (and the admin's sub-pages). */
+/** The list of the person's role homes (and the admin's sub-pages), then the master data they use. */
 export function SideNav({ roles }: { roles: readonly Role[] }) {
+  const masterData = MASTER_DATA_PAGES.filter((page) => page.roles.some((role) => roles.includes(role)));
   return (
     <nav aria-label="Your work areas">
       <ul className="flex gap-1 overflow-x-auto xl:flex-col">
@@ -36,6 +47,13 @@ export function SideNav({ roles }: { roles: readonly Role[] }) {
                 ))}
               </ul>
             )}
+          </li>
+        ))}
+        {masterData.map((page) => (
+          <li key={page.to} className="shrink-0">
+            <NavLink to={page.to} className={linkClass}>
+              {page.label}
+            </NavLink>
           </li>
         ))}
       </ul>

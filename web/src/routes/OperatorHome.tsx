@@ -1,25 +1,16 @@
 import { Caution } from "../components/Caution";
 import { PageIntro } from "../components/PageIntro";
-import { PlannedList } from "../components/PlannedList";
+import { OperatorQueues } from "../features/queues/RoleQueues";
 
-/** The operator's home: batches being run and the steps waiting for this person. */
+/** The operator's home: batches being run. */
 export default function OperatorHome() {
   return (
     <div className="flex flex-col gap-6">
       <PageIntro title="Operator">
-        <p>Your batches in progress and the steps waiting for you will be listed here.</p>
+        <p>Your batches in progress. Open one to record its steps; the list updates by itself.</p>
       </PageIntro>
       <Caution />
-      <div className="grid gap-4 lg:grid-cols-2">
-        <PlannedList
-          title="Batches in progress"
-          description="Each batch you are running, with its vessel, current step and the time it started."
-        />
-        <PlannedList
-          title="Steps waiting for you"
-          description="Steps ready to execute and record, oldest first."
-        />
-      </div>
+      <OperatorQueues />
     </div>
   );
 }

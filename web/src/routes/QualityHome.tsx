@@ -1,22 +1,21 @@
 import { PageIntro } from "../components/PageIntro";
-import { PlannedList } from "../components/PlannedList";
+import { MasterDataLinks } from "../components/MasterDataLinks";
 import { AuditIntegrityPanel } from "../features/audit/AuditIntegrityPanel";
 import { RecentAuditTable } from "../features/audit/RecentAuditTable";
+import { QualityQueues } from "../features/queues/RoleQueues";
+import { PendingApprovals } from "../features/signatures/PendingApprovals";
 
 /** Quality's home: completed batch records to review and release, and the audit trail. */
 export default function QualityHome() {
   return (
     <div className="flex flex-col gap-6">
       <PageIntro title="Quality">
-        <p>Completed batch records waiting for your review and release will be listed here.</p>
+        <p>Batch records in review, deviations waiting for closing, drafts to approve and the audit trail.</p>
       </PageIntro>
-      <div className="grid gap-4 lg:grid-cols-2">
-        <PlannedList
-          title="Ready for release"
-          description="Batch records with every step signed, waiting for a release decision."
-        />
-        <AuditIntegrityPanel />
-      </div>
+      <QualityQueues />
+      <PendingApprovals />
+      <AuditIntegrityPanel />
+      <MasterDataLinks />
       <RecentAuditTable />
     </div>
   );
