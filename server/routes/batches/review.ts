@@ -7,6 +7,9 @@ import type { BatchReviewer } from "../../commands/batchReviewer.js";
 import { combinedTrace } from "../../commands/batchTrace.js";
 import { loadBatchRecord } from "../../commands/batchRecord.js";
 import { SignatureSchema } from "../../../shared/schemas/common.js";
+import { batchRecordJson } from "../../commands/batchRecordJson.js";
+import { kineticsChecks } from "../../db/schema.js";
+import { asc, eq } from "drizzle-orm";
 
 const presentCheck = (c: NonNullable<Awaited<ReturnType<BatchReviewer["review"]>>["check"]>) => ({
   id: c.id,
@@ -50,6 +53,12 @@ export function reviewRoutes(r: PolicyRouter, ctx: RouteContext, reviewer: Batch
     const { batch } = await loadBatchRecord(ctx.db, id);
     const pdf = await reviewer.recordPdf(id);
     res.set({ "Content-Type": "application/pdf", "Content-Disposition": `inline; filename="${batch.code}-executed-record.pdf"`, "Content-Length": String(pdf.length) }).send(pdf);
+  });
+  r.get("/:id/record.json", signedIn, async (req, res) => {
+    const id = idParam(req);
+    const record = await loadBatchRecord(ctx.db, id);
+    const checks = await ctx.db.select().from(kineticsChecks).where(eq(kineticsChecks.batchId, id)).orderBy(asc(kineticsChecks.ranAt));
+    res.set("Content-Disposition", `attachment; filename="${record.batch.code}-record.json"`).json(await batchRecordJson(ctx.db, record, checks));
   });
   r.get("/:id/trace.csv", signedIn, async (req, res) => {
     const id = idParam(req);

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { eq } from "drizzle-orm";
+import { and, asc, eq, like, or } from "drizzle-orm";
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync, rmSync, readdirSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -8,7 +8,7 @@ import { PDFParse } from "pdf-parse";
 import { startTestApp, type TestApp } from "../../support/testApp.js";
 import { buildPlannedBatch } from "../../factories.js";
 import { BatchDriver, firstOrderCsv } from "../../support/batchDriver.js";
-import { batchRecordDocuments, kineticsChecks } from "../../../server/db/schema.js";
+import { auditEvents, batchRecordDocuments, batchTraces, batches as batchesTable, kineticsChecks, signatures, stepEntries } from "../../../server/db/schema.js";
 
 let t: TestApp;
 let d: BatchDriver;
@@ -166,5 +166,29 @@ describe("the executed batch record", () => {
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
+  });
+});
+
+describe("the complete record as JSON", () => {
+  it("holds every entry version, signature, audit row and file hash, exactly as in the database", async () => {
+    const { batch } = await buildPlannedBatch(t.database.db);
+    await d.chargeAndRun(batch.id);
+    await d.clients.op.post(`/api/batches/${batch.id}/steps/chargeN2/corrections`, { values: { n2Mass: 8.6 }, reason: "scale re-read", password: d.people.op.password });
+    await d.runToReview(batch.id, K_MODEL);
+    const res = await d.clients.qa.get(`/api/batches/${batch.id}/record.json`);
+    expect(res.status).toBe(200);
+    const json = JSON.parse(JSON.stringify(res.body));
+    const db = t.database.db;
+    const entries = await db.select().from(stepEntries).where(eq(stepEntries.batchId, batch.id));
+    expect(json.entries).toHaveLength(entries.length);
+    for (const e of entries) expect(json.entries.find((x: { id: string }) => x.id === e.id)).toEqual(JSON.parse(JSON.stringify(e)));
+    const sigs = await db.select().from(signatures).where(or(and(eq(signatures.entityType, "batch"), eq(signatures.entityId, batch.id)), like(signatures.entityId, `${batch.id}/%`)));
+    expect(json.signatures.map((s: { id: string }) => s.id).sort()).toEqual(sigs.map((s) => s.id).sort());
+    for (const s of sigs) expect(json.signatures.find((x: { id: string }) => x.id === s.id)).toEqual(JSON.parse(JSON.stringify(s)));
+    const audit = await db.select().from(auditEvents).where(or(eq(auditEvents.entityId, batch.id), like(auditEvents.entityId, `${batch.id}/%`))).orderBy(asc(auditEvents.seq));
+    expect(json.audit).toEqual(JSON.parse(JSON.stringify(audit)));
+    const traces = await db.select({ sha256: batchTraces.sha256 }).from(batchTraces).where(eq(batchTraces.batchId, batch.id));
+    expect(json.traces.map((x: { sha256: string }) => x.sha256)).toEqual(traces.map((x) => x.sha256));
+    expect(json.batch).toEqual(JSON.parse(JSON.stringify((await db.select().from(batchesTable).where(eq(batchesTable.id, batch.id)))[0])));
   });
 });
