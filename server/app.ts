@@ -38,7 +38,7 @@ export function createApp(services: AppServices): BuiltApp {
   const app = express();
   app.set("trust proxy", "loopback");
   app.disable("x-powered-by");
-  const checkCredentials = createCredentialChecker({ db: services.db, mail: services.mail, lockoutThreshold: settings.lockoutThreshold, appUrl: settings.appUrl });
+  const checkCredentials = createCredentialChecker({ db: services.db, mail: services.mail, lockoutThreshold: settings.lockoutThreshold, appUrl: settings.appUrl, passwordMaxAgeDays: settings.passwordMaxAgeDays });
   const changes = createChangeFeed(services.pool, log);
   const ctx: RouteContext = { ...services, checkCredentials, notify: createNotifier(services.mail, settings.appUrl), changes };
   const routes: RouteDeclaration[] = [];

@@ -48,6 +48,8 @@ export async function bootServer(env: Env, endpoints: Endpoints, log: Logger = p
       sessionSecret: endpoints.sessionSecret,
       sessionIdleMinutes: env.SESSION_IDLE_MINUTES,
       lockoutThreshold: env.LOCKOUT_THRESHOLD,
+      passwordMaxAgeDays: env.PASSWORD_MAX_AGE_DAYS,
+      passwordHistory: env.PASSWORD_HISTORY,
       uploadMaxBytes: env.UPLOAD_MAX_BYTES,
       secureCookie: url.startsWith("https://"),
       signInPerMinute: 20,

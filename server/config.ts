@@ -31,6 +31,8 @@ export const EnvSchema = z.object({
   SESSION_SECRET: z.string().min(32).optional(),
   SESSION_IDLE_MINUTES: z.coerce.number().positive().max(24 * 60).default(15),
   LOCKOUT_THRESHOLD: z.coerce.number().int().min(1).max(100).default(5),
+  PASSWORD_MAX_AGE_DAYS: z.coerce.number().int().min(1).max(3650).default(90),
+  PASSWORD_HISTORY: z.coerce.number().int().min(0).max(24).default(5),
   UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(25 * 1024 * 1024),
   SEED_DEMO: flag.default(true),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),

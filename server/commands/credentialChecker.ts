@@ -16,6 +16,8 @@ export interface CredentialCheckerOptions {
   mail: MailService;
   lockoutThreshold: number;
   appUrl: string;
+  /** Passwords older than this must be changed at sign-in. */
+  passwordMaxAgeDays?: number;
 }
 
 /**
@@ -38,11 +40,14 @@ export function createCredentialChecker(opts: CredentialCheckerOptions) {
     if (person.lockedAt) return { ok: false, reason: "account-locked" };
     const actor = { id: person.id, name: person.name };
     if (await verifyPassword(password, person.passwordHash)) {
+      const ageDays = (Date.now() - person.passwordChangedAt.getTime()) / 86_400_000;
+      const expired = purpose === "sign-in" && opts.passwordMaxAgeDays !== undefined && ageDays > opts.passwordMaxAgeDays && !person.mustChangePassword;
       await opts.db.transaction(async (tx) => {
-        await tx.update(people).set({ failedSignIns: 0, ...(purpose === "sign-in" ? { lastSignInAt: sql`now()` } : {}) }).where(eq(people.id, person.id));
+        await tx.update(people).set({ failedSignIns: 0, ...(purpose === "sign-in" ? { lastSignInAt: sql`now()` } : {}), ...(expired ? { mustChangePassword: true } : {}) }).where(eq(people.id, person.id));
+        if (expired) await recordAudit(tx, SYSTEM_ACTOR, { action: "password-expired", entityType: "person", entityId: person.id, before: { mustChangePassword: false }, after: { mustChangePassword: true }, reason: `password older than ${opts.passwordMaxAgeDays} days` });
         if (purpose === "sign-in") await recordAudit(tx, actor, { action: "signed-in", entityType: "person", entityId: person.id });
       });
-      return { ok: true, person };
+      return { ok: true, person: expired ? { ...person, mustChangePassword: true } : person };
     }
     const locked = await opts.db.transaction(async (tx) => {
       // Counted in the database so two failures at once both count.

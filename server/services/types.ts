@@ -13,6 +13,8 @@ export interface AppSettings {
   sessionSecret: string;
   sessionIdleMinutes: number;
   lockoutThreshold: number;
+  passwordMaxAgeDays: number;
+  passwordHistory: number;
   uploadMaxBytes: number;
   secureCookie: boolean;
   signInPerMinute: number;

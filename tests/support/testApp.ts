@@ -39,6 +39,8 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
     sessionSecret: "test-secret-that-is-long-enough-for-hmac",
     sessionIdleMinutes: 15,
     lockoutThreshold: 5,
+    passwordMaxAgeDays: 90,
+    passwordHistory: 5,
     uploadMaxBytes: 1024 * 1024,
     secureCookie: false,
     signInPerMinute: 1000,

@@ -12,6 +12,8 @@ export const people = pgTable("people", {
   passwordHash: text("password_hash").notNull(),
   passwordChangedAt: timestamp("password_changed_at", { withTimezone: true }).notNull().defaultNow(),
   mustChangePassword: boolean("must_change_password").notNull().default(false),
+  /** Hashes of the person's earlier passwords, newest first, so they are not chosen again. */
+  passwordHistory: jsonb("password_history").$type<string[]>().notNull().default([]),
   active: boolean("active").notNull().default(true),
   failedSignIns: integer("failed_sign_ins").notNull().default(0),
   lockedAt: timestamp("locked_at", { withTimezone: true }),

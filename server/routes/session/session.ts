@@ -71,10 +71,14 @@ export function sessionRoutes(ctx: RouteContext, registry: RouteDeclaration[], p
       if (check.reason === "bad-credentials") throw new HttpError(422, "wrong-current-password", "The current password is not right.", "currentPassword");
       throw refusals[check.reason];
     }
-    if (await verifyPassword(newPassword, row.passwordHash)) throw new HttpError(422, "password-reused", "Choose a password different from the current one.", "newPassword");
+    const recent = [row.passwordHash, ...(row.passwordHistory ?? []).slice(0, ctx.settings.passwordHistory)];
+    for (const old of recent) {
+      if (await verifyPassword(newPassword, old)) throw new HttpError(422, "password-reused", `Choose a password different from your current one and your last ${ctx.settings.passwordHistory}.`, "newPassword");
+    }
     const passwordHash = await hashPassword(newPassword);
+    const passwordHistory = [row.passwordHash, ...(row.passwordHistory ?? [])].slice(0, ctx.settings.passwordHistory);
     const updated = await ctx.db.transaction(async (tx) => {
-      const [u] = await tx.update(people).set({ passwordHash, passwordChangedAt: sql`now()`, mustChangePassword: false }).where(eq(people.id, me.id)).returning();
+      const [u] = await tx.update(people).set({ passwordHash, passwordHistory, passwordChangedAt: sql`now()`, mustChangePassword: false }).where(eq(people.id, me.id)).returning();
       await recordAudit(tx, me, { action: "password-changed", entityType: "person", entityId: me.id, before: { mustChangePassword: row.mustChangePassword }, after: { mustChangePassword: false } });
       return u;
     });

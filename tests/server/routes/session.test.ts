@@ -201,3 +201,23 @@ describe("idle expiry", () => {
     }
   });
 });
+
+describe("password ageing and reuse", () => {
+  it("makes a person whose password is older than the limit choose a new one, and refuses their recent passwords", async () => {
+    const p = await buildPerson(t.database.db, { roles: ["operator"], passwordChangedAt: new Date(Date.now() - 91 * 86_400_000) });
+    const c = new Client(t.app);
+    const res = await c.signIn(p.email, p.password);
+    expect(res.status).toBe(200);
+    expect(res.body.user.mustChangePassword).toBe(true);
+    expect((await t.database.db.select().from(auditEvents).where(and(eq(auditEvents.entityId, p.id), eq(auditEvents.action, "password-expired"))))).toHaveLength(1);
+    const same = await c.post("/api/session/password", { currentPassword: p.password, newPassword: p.password });
+    expect(same.status).toBe(422);
+    expect(same.body.error).toMatchObject({ code: "password-reused", field: "newPassword" });
+    const first = await c.post("/api/session/password", { currentPassword: p.password, newPassword: "second passphrase here" });
+    expect(first.status).toBe(200);
+    c.csrf = first.body.csrfToken;
+    const back = await c.post("/api/session/password", { currentPassword: "second passphrase here", newPassword: p.password });
+    expect(back.status).toBe(422); // the previous password is in the history
+    expect((await c.post("/api/session/password", { currentPassword: "second passphrase here", newPassword: "third passphrase here" })).status).toBe(200);
+  });
+});

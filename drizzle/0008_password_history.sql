@@ -1,0 +1,1 @@
+ALTER TABLE "people" ADD COLUMN "password_history" jsonb DEFAULT '[]'::jsonb NOT NULL;
