@@ -14,6 +14,8 @@ declare module "vitest" {
     mailDir: string;
     /** A second database for tests that need tables nobody else writes to (an empty outbox). */
     isolatedDatabaseUrl: string;
+    /** An empty database (no migrations) for the restore test. */
+    emptyDatabaseUrl: string;
   }
 }
 
@@ -31,6 +33,7 @@ export default async function setup(project: TestProject) {
   await runMigrations(isolated.db);
   await isolated.close();
   project.provide("isolatedDatabaseUrl", isolatedUrl);
+  project.provide("emptyDatabaseUrl", await services.postgres!.createDatabase("isobatch_restore"));
   project.provide("databaseUrl", services.databaseUrl);
   project.provide("s3Endpoint", services.s3Endpoint);
   project.provide("smtpUrl", services.smtpUrl);
