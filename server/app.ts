@@ -7,6 +7,7 @@ import type { AppServices, RouteContext } from "./services/types.js";
 import type { RouteDeclaration } from "./http/policyRouter.js";
 import { errorHandler, notFoundRoute } from "./http/errors.js";
 import { sessionMiddleware } from "./http/session.js";
+import { idempotency } from "./http/idempotency.js";
 import { createCredentialChecker } from "./commands/credentialChecker.js";
 import { createNotifier } from "./commands/notifier.js";
 import { createChangeFeed } from "./services/live.js";
@@ -67,6 +68,7 @@ export function createApp(services: AppServices): BuiltApp {
   app.use("/api", express.json({ limit: "1mb" }));
   const sessions = sessionMiddleware({ pool: services.pool, db: services.db, secret: settings.sessionSecret, idleMinutes: settings.sessionIdleMinutes, secureCookie: settings.secureCookie, checkCredentials });
   app.use("/api", ...sessions.handlers);
+  app.use("/api", idempotency(services.db));
 
   const routers = [
     healthRoutes(ctx, routes),

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { bigint, boolean, index, integer, jsonb, pgTable, text, timestamp, uuid, varchar, json } from "drizzle-orm/pg-core";
+import { bigint, boolean, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid, varchar, json } from "drizzle-orm/pg-core";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
 
@@ -83,4 +83,22 @@ export const mailOutbox = pgTable(
     sentAt: timestamp("sent_at", { withTimezone: true }),
   },
   (t) => [index("mail_outbox_due_idx").on(t.status, t.nextAttemptAt)],
+);
+
+/**
+ * Answers already given to mutating requests that carried an Idempotency-Key, so a retried
+ * request (a tablet that lost its connection) is applied once and answered as the first time.
+ */
+export const idempotencyKeys = pgTable(
+  "idempotency_keys",
+  {
+    personId: uuid("person_id").notNull(),
+    key: text("key").notNull(),
+    method: text("method").notNull(),
+    path: text("path").notNull(),
+    status: integer("status"),
+    body: jsonb("body"),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.personId, t.key] })],
 );

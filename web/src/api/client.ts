@@ -73,23 +73,39 @@ async function toApiError(response: Response): Promise<ApiError> {
   );
 }
 
+/** A fresh key for one mutating request; a retry of the same request sends the same key. */
+export const newIdempotencyKey = () => crypto.randomUUID();
+
 async function send(method: Method, path: string, options: RequestOptions): Promise<Response> {
   const headers: Record<string, string> = { Accept: "application/json" };
   if (options.body !== undefined) headers["Content-Type"] = "application/json";
   if (method !== "GET") {
     if (!bridge) throw new Error("The API client was used before the session bridge was connected.");
     headers["X-CSRF-Token"] = await bridge.getCsrfToken();
+    headers["Idempotency-Key"] = newIdempotencyKey();
   }
-  try {
-    return await fetch(path, {
+  const attempt = () =>
+    fetch(path, {
       method,
       headers,
       credentials: "same-origin",
       body: options.body === undefined ? undefined : JSON.stringify(options.body),
       signal: options.signal,
     });
+  try {
+    return await attempt();
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === "AbortError") throw cause;
+    // A dropped connection (a tablet changing access point): send the same request once more.
+    // The server applies it at most once, whether or not the first attempt arrived.
+    if (method !== "GET") {
+      await new Promise((r) => setTimeout(r, 1000));
+      try {
+        return await attempt();
+      } catch {
+        /* fall through to the error below */
+      }
+    }
     throw new ApiError(
       0,
       "network-unreachable",

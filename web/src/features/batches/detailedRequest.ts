@@ -1,4 +1,4 @@
-import { ApiError, apiGet } from "../../api/client";
+import { ApiError, apiGet, newIdempotencyKey } from "../../api/client";
 import { queryClient } from "../../api/queryClient";
 import { sessionQueryOptions } from "../session/queries";
 
@@ -43,12 +43,12 @@ export function reportAuthRefusal(e: ApiError): void {
   if (e.status === 401 || (e.status === 403 && e.code === "password-change-required")) void apiGet("/api/queues").catch(() => undefined);
 }
 
-async function sendOnce(path: string, body: unknown, fresh: boolean): Promise<Response> {
+async function sendOnce(path: string, body: unknown, fresh: boolean, key: string): Promise<Response> {
   try {
     return await fetch(path, {
       method: "POST",
       credentials: "same-origin",
-      headers: { Accept: "application/json", "Content-Type": "application/json", "X-CSRF-Token": await csrfToken(fresh) },
+      headers: { Accept: "application/json", "Content-Type": "application/json", "X-CSRF-Token": await csrfToken(fresh), "Idempotency-Key": key },
       body: JSON.stringify(body),
     });
   } catch {
@@ -58,10 +58,11 @@ async function sendOnce(path: string, body: unknown, fresh: boolean): Promise<Re
 
 /** POSTs JSON like apiPost, but a refusal keeps its details (e.g. error.refusals or error.problems). */
 export async function postWithDetails<T>(path: string, body: unknown): Promise<T> {
-  let response = await sendOnce(path, body, false);
+  const key = newIdempotencyKey();
+  let response = await sendOnce(path, body, false, key);
   let error = response.ok ? null : errorFromBody(response.status, await response.json().catch(() => null));
   if (error && isCsrfRefusal(error)) {
-    response = await sendOnce(path, body, true);
+    response = await sendOnce(path, body, true, key);
     error = response.ok ? null : errorFromBody(response.status, await response.json().catch(() => null));
   }
   if (error) {

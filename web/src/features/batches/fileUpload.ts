@@ -1,4 +1,5 @@
 import { csrfToken, errorFromBody, isCsrfRefusal, reportAuthRefusal } from "./detailedRequest";
+import { newIdempotencyKey } from "../../api/client";
 import type { UploadedFile } from "./types";
 
 /** Progress of an upload: bytes sent of the total. */
@@ -14,6 +15,7 @@ function sendOnce(file: File, token: string, onProgress: (p: UploadProgress) => 
     xhr.withCredentials = true;
     xhr.setRequestHeader("Accept", "application/json");
     xhr.setRequestHeader("X-CSRF-Token", token);
+    xhr.setRequestHeader("Idempotency-Key", newIdempotencyKey());
     xhr.responseType = "text";
     xhr.upload.onprogress = (event) => onProgress({ sent: event.loaded, total: event.lengthComputable ? event.total : file.size });
     xhr.onload = () => {

@@ -1,4 +1,4 @@
-import { ApiError } from "../../api/client";
+import { ApiError, newIdempotencyKey } from "../../api/client";
 import { queryClient } from "../../api/queryClient";
 import { sessionQueryOptions } from "../session/queries";
 import type { TraceCsvProblem } from "../../../../shared/kinetics/traceProblemList";
@@ -42,6 +42,7 @@ export async function uploadTrace<T>(path: string, params: unknown, file: Blob, 
     xhr.open("POST", path);
     xhr.withCredentials = true;
     xhr.setRequestHeader("X-CSRF-Token", csrf);
+    xhr.setRequestHeader("Idempotency-Key", newIdempotencyKey());
     xhr.setRequestHeader("Accept", "application/json");
     xhr.upload.onprogress = (event) => {
       if (event.lengthComputable) onProgress(event.loaded / event.total);
