@@ -8,6 +8,7 @@ import type { RouteDeclaration } from "./http/policyRouter.js";
 import { errorHandler, notFoundRoute } from "./http/errors.js";
 import { sessionMiddleware } from "./http/session.js";
 import { idempotency } from "./http/idempotency.js";
+import { signingLimiter } from "./http/signingLimiter.js";
 import { createCredentialChecker } from "./commands/credentialChecker.js";
 import { createNotifier } from "./commands/notifier.js";
 import { createChangeFeed } from "./services/live.js";
@@ -69,6 +70,7 @@ export function createApp(services: AppServices): BuiltApp {
   const sessions = sessionMiddleware({ pool: services.pool, db: services.db, secret: settings.sessionSecret, idleMinutes: settings.sessionIdleMinutes, secureCookie: settings.secureCookie, checkCredentials });
   app.use("/api", ...sessions.handlers);
   app.use("/api", idempotency(services.db));
+  app.use("/api", signingLimiter(settings.signaturesPerMinute));
 
   const routers = [
     healthRoutes(ctx, routes),

@@ -53,6 +53,7 @@ export async function bootServer(env: Env, endpoints: Endpoints, log: Logger = p
       uploadMaxBytes: env.UPLOAD_MAX_BYTES,
       secureCookie: url.startsWith("https://"),
       signInPerMinute: 20,
+      signaturesPerMinute: 60,
       mailDir: endpoints.mailDir,
       webDist: endpoints.webDist,
     },

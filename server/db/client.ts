@@ -20,6 +20,8 @@ export interface Database {
 export function createDatabase(url: string, onPoolError: (err: Error) => void = () => undefined, max = 10): Database {
   const pool = new pg.Pool({ connectionString: url, max, connectionTimeoutMillis: 5000, idleTimeoutMillis: 30_000 });
   pool.on("error", onPoolError);
+  // pg-pool listens for errors only on idle clients; a checked-out one that loses its connection would otherwise throw an uncaught 'error'.
+  pool.on("connect", (client) => client.on("error", onPoolError));
   const db = drizzle(pool, { schema });
   return { pool, db, close: () => pool.end() };
 }

@@ -31,7 +31,7 @@ export const notFoundRoute: RequestHandler = (req, _res, next) => next(new HttpE
 // PostgreSQL error classes that mean "the database is not there right now".
 const unavailableCodes = new Set(["57P01", "57P02", "57P03", "08000", "08001", "08003", "08006", "53300"]);
 const isDbUnavailable = (err: any) =>
-  unavailableCodes.has(err?.code) || ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(err?.code) || /Connection terminated|timeout exceeded when trying to connect/i.test(String(err?.message));
+  unavailableCodes.has(err?.code) || ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(err?.code) || /Connection terminated|timeout exceeded when trying to connect|is not queryable/i.test(String(err?.message));
 
 /** The one error shape: `{ error: { code, message, field? } }`; never a stack trace. */
 export function errorHandler(log: { error: (obj: object, msg: string) => void }): ErrorRequestHandler {

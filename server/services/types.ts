@@ -18,6 +18,7 @@ export interface AppSettings {
   uploadMaxBytes: number;
   secureCookie: boolean;
   signInPerMinute: number;
+  signaturesPerMinute: number;
   mailDir?: string;
   webDist?: string;
 }

@@ -44,6 +44,7 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
     uploadMaxBytes: 1024 * 1024,
     secureCookie: false,
     signInPerMinute: 1000,
+    signaturesPerMinute: 1000,
     mailDir: inject("mailDir"),
     ...opts.settings,
   };

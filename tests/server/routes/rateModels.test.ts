@@ -156,3 +156,24 @@ describe("rate models", () => {
     expect(res.body.version.signatures[0].matchesContent).toBe(false);
   });
 });
+
+describe("signing rate limit", () => {
+  it("refuses a burst of signing attempts with 429 and signs nothing", async () => {
+    const limited = await startTestApp({ settings: { signaturesPerMinute: 3 } });
+    try {
+      const author = await buildPerson(limited.database.db, { roles: ["engineer"] });
+      const approver = await buildPerson(limited.database.db, { roles: ["quality"] });
+      const a = new Client(limited.app);
+      await a.signIn(author.email, author.password);
+      const draft = (await newModel(a)).body.version;
+      const q = new Client(limited.app);
+      await q.signIn(approver.email, approver.password);
+      const statuses = [];
+      for (let i = 0; i < 4; i++) statuses.push((await q.post(`/api/rate-models/versions/${draft.id}/approve`, { password: `guess ${i}` })).status);
+      expect(statuses).toEqual([422, 422, 422, 429]);
+      expect(await limited.database.db.select().from(signatures).where(eq(signatures.entityId, draft.id))).toHaveLength(0);
+    } finally {
+      await limited.close();
+    }
+  });
+});
