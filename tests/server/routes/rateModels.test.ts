@@ -177,3 +177,29 @@ describe("signing rate limit", () => {
     }
   });
 });
+
+describe("signatures stay bound to their record", () => {
+  it("shows a signature copied onto another record as not matching it", async () => {
+    const a = (await newModel(eng)).body.version;
+    const b = (await newModel(eng)).body.version;
+    await qa.post(`/api/rate-models/versions/${a.id}/approve`, { password: quality.password });
+    const [original] = await t.database.db.select().from(signatures).where(eq(signatures.entityId, a.id));
+    // Someone with database access copies the signature row onto record b.
+    const { id: _id, signedAt: _at, ...copy } = original;
+    await t.database.db.insert(signatures).values({ ...copy, entityId: b.id });
+    const view = (await qa.get(`/api/rate-models/versions/${b.id}`)).body.version;
+    expect(view.signatures).toHaveLength(1);
+    expect(view.signatures[0].matchesContent).toBe(false);
+    expect((await qa.get(`/api/rate-models/versions/${a.id}`)).body.version.signatures[0].matchesContent).toBe(true);
+  });
+
+  it("never deletes a person, so an id is never reused", async () => {
+    const raw = new pg.Client({ connectionString: inject("databaseUrl") });
+    await raw.connect();
+    try {
+      await expect(raw.query("delete from people where id = $1", [engineer.id])).rejects.toThrow(/never deleted/);
+    } finally {
+      await raw.end();
+    }
+  });
+});
