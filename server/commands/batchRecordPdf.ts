@@ -6,6 +6,7 @@ import { auditEvents, people, signatures } from "../db/schema.js";
 import type { BatchRecord } from "./batchRecord.js";
 import type { KineticsCheckRow } from "./kineticsGate.js";
 import type { ReviewException } from "./reviewExceptions.js";
+import type { BatchYield } from "./yieldCheck.js";
 import { fromSI } from "../../shared/units/index.js";
 
 const require = createRequire(import.meta.url);
@@ -21,6 +22,7 @@ export interface RecordDocumentInput {
   check: KineticsCheckRow | null;
   exceptions: ReviewException[];
   trace: { t: number[]; V: number[] };
+  yield: BatchYield;
 }
 
 /** Renders the executed batch record as a PDF (Public Sans embedded) and returns its bytes. */
@@ -69,6 +71,10 @@ export async function renderBatchRecordPdf(db: DbOrTx, input: RecordDocumentInpu
       for (const sig of s.signatures) sigLine(sig, sig.matchesContent ? "" : " [no longer matches the current entry]");
     }
   }
+
+  h("Yield");
+  const y = input.yield;
+  line(y.finalConversion === null ? "No trace: the final conversion is not known." : `Final conversion ${y.finalConversion.toFixed(3)} against the theoretical 1.000${y.limits ? `; accepted ${y.limits.low} to ${y.limits.high}: ${y.within ? "within" : "OUTSIDE"}` : "; the master record sets no limits"}`);
 
   h("Samples");
   if (!record.samples.length) line("None recorded.");

@@ -11,6 +11,7 @@ import { createKineticsGate, currentCheck, runKineticsCheck } from "./kineticsGa
 import { EXCEPTION_ENTITY, exceptionEntityId, exceptionSignedContent, reviewExceptions, unreviewedCount } from "./reviewExceptions.js";
 import { renderBatchRecordPdf } from "./batchRecordPdf.js";
 import { combinedTrace } from "./batchTrace.js";
+import { batchYield, flagYield } from "./yieldCheck.js";
 import { confirmSigner, recordSignature } from "./signatureRecorder.js";
 import { recordAudit } from "./audit.js";
 import { announce } from "../services/live.js";
@@ -26,7 +27,7 @@ export function createBatchReviewer(deps: { db: Db; storage: StorageService; not
     const check = await currentCheck(tx, record);
     const exceptions = await reviewExceptions(tx, record, check);
     const trace = await combinedTrace(tx, record.batch.id);
-    return renderBatchRecordPdf(tx, { record, check, exceptions, trace: { t: trace.t as number[], V: trace.V as number[] } });
+    return renderBatchRecordPdf(tx, { record, check, exceptions, trace: { t: trace.t as number[], V: trace.V as number[] }, yield: await batchYield(tx, record) });
   }
 
   // The released record is stored like any other file, and attached to the batch with its hash.
@@ -51,7 +52,10 @@ export function createBatchReviewer(deps: { db: Db; storage: StorageService; not
     async afterMove(tx: Tx, batchId: string, person: SignedInPerson, to: BatchState) {
       if (to !== "review" && to !== "released") return;
       const record = await loadBatchRecord(tx, batchId);
-      if (to === "review") await runKineticsCheck(tx, deps.notify, record, person);
+      if (to === "review") {
+        await runKineticsCheck(tx, deps.notify, record, person);
+        await flagYield(tx, deps.notify, record);
+      }
       else await storeReleasedRecord(tx, record, person);
     },
     async review(batchId: string, verifyFiles = true) {

@@ -41,6 +41,7 @@ export const DEMO_MASTER_RECORD = {
   content: {
     maxConversion: 1,
     targetConversion: 0.95,
+    yieldLimits: { low: 0.93, high: 1.02 },
     notes: "",
     phases: {
       charge: [

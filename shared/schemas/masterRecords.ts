@@ -60,6 +60,12 @@ export const MasterRecordContentSchema = z
     maxConversion: finite().refine((x) => x > 0 && x <= 1, "must be above 0 and at most 1").default(1),
     /** The conversion at which the run is complete. */
     targetConversion: finite().refine((x) => x > 0 && x <= 1, "must be above 0 and at most 1"),
+    /** Accepted yield: the final conversion against the theoretical (complete) conversion; outside it a deviation opens. */
+    yieldLimits: z
+      .object({ low: finite().refine((x) => x >= 0 && x <= 1.5, "must be between 0 and 1.5"), high: finite().refine((x) => x >= 0 && x <= 1.5, "must be between 0 and 1.5") })
+      .refine((l) => l.low <= l.high, { message: "the low limit must not be above the high limit", path: ["low"] })
+      .nullable()
+      .default(null),
     notes: z.string().trim().max(4000).optional().default(""),
   })
   .refine((c) => c.targetConversion <= c.maxConversion, { message: "must not be above the maximum conversion", path: ["targetConversion"] })

@@ -8,6 +8,7 @@ import { combinedTrace } from "../../commands/batchTrace.js";
 import { loadBatchRecord } from "../../commands/batchRecord.js";
 import { SignatureSchema } from "../../../shared/schemas/common.js";
 import { batchRecordJson } from "../../commands/batchRecordJson.js";
+import { batchYield } from "../../commands/yieldCheck.js";
 import { kineticsChecks } from "../../db/schema.js";
 import { asc, eq } from "drizzle-orm";
 
@@ -58,7 +59,7 @@ export function reviewRoutes(r: PolicyRouter, ctx: RouteContext, reviewer: Batch
     const id = idParam(req);
     const record = await loadBatchRecord(ctx.db, id);
     const checks = await ctx.db.select().from(kineticsChecks).where(eq(kineticsChecks.batchId, id)).orderBy(asc(kineticsChecks.ranAt));
-    res.set("Content-Disposition", `attachment; filename="${record.batch.code}-record.json"`).json(await batchRecordJson(ctx.db, record, checks));
+    res.set("Content-Disposition", `attachment; filename="${record.batch.code}-record.json"`).json({ ...(await batchRecordJson(ctx.db, record, checks)), yield: await batchYield(ctx.db, record) });
   });
   r.get("/:id/trace.csv", signedIn, async (req, res) => {
     const id = idParam(req);

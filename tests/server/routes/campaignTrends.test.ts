@@ -31,7 +31,7 @@ describe("campaign trends and model updates", () => {
     for (const T of temps) {
       const { batch } = await buildPlannedBatch(t.database.db, { campaign: camp, temperatureC: T - 273.15 });
       await d.chargeAndRun(batch.id);
-      await d.runToReview(batch.id, kAt(T), "op", "sup", { temperatureC: T - 273.15 });
+      await d.runToReview(batch.id, kAt(T), "op", "sup", { temperatureC: T - 273.15, n: 100 }); // long enough to pass the yield limit at the coolest point
       expect((await d.release("qa", batch.id)).status).toBe(200);
       ids.push(batch.id);
     }

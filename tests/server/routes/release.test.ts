@@ -132,6 +132,19 @@ describe("review by exception", () => {
   });
 });
 
+describe("the yield", () => {
+  it("opens a deviation at review when the final conversion is below the master record's limits", async () => {
+    const { batch } = await buildPlannedBatch(t.database.db);
+    await d.chargeAndRun(batch.id);
+    await d.runToReview(batch.id, K_MODEL, "op", "sup", { n: 20 }); // stopped after 10 min: X ≈ 0.70
+    const view = (await d.clients.qa.get(`/api/batches/${batch.id}`)).body;
+    const dev = view.deviations.find((x: { source: string }) => x.source === "yield");
+    expect(dev).toMatchObject({ status: "open", severity: "major" });
+    expect(dev.description).toMatch(/0\.69\d of the theoretical; the master record accepts 0\.93 to 1\.02/);
+    expect(refusalCodes(await release("qa", batch.id))).toContain("open-deviation");
+  });
+});
+
 describe("the executed batch record", () => {
   it("is a PDF whose text holds the signatures and the verdict, and whose first page renders", async () => {
     const { batch } = await buildPlannedBatch(t.database.db);
