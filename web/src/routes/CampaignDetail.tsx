@@ -30,6 +30,18 @@ export default function CampaignDetail() {
             <PageIntro title={`Campaign ${c.code}`}>
               <p>{c.process}</p>
             </PageIntro>
+            <ul className="flex flex-wrap gap-x-6">
+              <li>
+                <Link to={`/campaigns/${c.id}/trends`} className="inline-flex min-h-11 items-center font-semibold">
+                  Trends: k against the model, conversion traces
+                </Link>
+              </li>
+              <li>
+                <a href={`/api/campaigns/${encodeURIComponent(c.id)}/results.csv`} download className="inline-flex min-h-11 items-center font-semibold">
+                  Download the results as CSV
+                </a>
+              </li>
+            </ul>
             <PinnedVersions campaign={c} />
             <section aria-labelledby="batches-title" className="flex flex-col gap-3">
               <h2 id="batches-title" className="text-xl font-bold">

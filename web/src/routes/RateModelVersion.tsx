@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import { useNavigate, useParams } from "react-router";
+import { Link, useNavigate, useParams } from "react-router";
 import { Breadcrumb } from "../components/Breadcrumb";
 import { Notice } from "../components/Notice";
 import { QueryState } from "../components/QueryState";
@@ -11,6 +11,7 @@ import { VersionActions } from "../components/VersionActions";
 import { VersionHistory } from "../components/VersionHistory";
 import { VersionMeta } from "../components/VersionMeta";
 import { useApproveRateModelMutation } from "../features/rateModels/mutations";
+import { useSession } from "../features/session/useSession";
 import { rateModelVersionQueryOptions, rateModelVersionsQueryOptions } from "../features/rateModels/queries";
 import { RateModelForm } from "../features/rateModels/RateModelForm";
 import { contentToForm } from "../features/rateModels/rateModelFormValues";
@@ -34,6 +35,7 @@ function VersionScreen({ versionId }: { versionId: string }) {
   const modelId = query.data?.modelId;
   const siblings = useQuery({ ...rateModelVersionsQueryOptions(modelId ?? ""), enabled: Boolean(modelId) });
   const approve = useApproveRateModelMutation();
+  const { user } = useSession();
   const [mode, setMode] = useState<Mode>("view");
   const [signing, setSigning] = useState(false);
   const [message, setMessage] = useState<Message | null>(null);
@@ -75,6 +77,13 @@ function VersionScreen({ versionId }: { versionId: string }) {
                   setSigning(true);
                 }}
               />
+            )}
+            {mode === "view" && user?.roles.includes("engineer") && (
+              <p>
+                <Link to={`/rate-models/versions/${version.id}/update`} className="inline-flex min-h-11 items-center font-semibold">
+                  Propose an update from released batches
+                </Link>
+              </p>
             )}
             {mode !== "view" && (
               <Notice>

@@ -1,6 +1,4 @@
 import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import { z } from "zod";
 import { Navigate, useLocation, useNavigate } from "react-router";
 import { ApiError } from "../api/client";
 import type { SessionUser } from "../api/types";
@@ -15,16 +13,17 @@ import { applyServerFieldError, errorMessage } from "../lib/serverFieldErrors";
 import { isReturnPathAllowed } from "../lib/safeReturnPath";
 import { setSignInNotice, useSignInNotice } from "../lib/signInNotice";
 
-const signInSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .min(1, "Enter your email address.")
-    .pipe(z.email("Enter a valid email address.")),
-  password: z.string().min(1, "Enter your password."),
-});
-
-type SignInValues = z.input<typeof signInSchema>;
+// The sign-in page is the first load on every tablet, so it checks its two fields with
+// react-hook-form's own rules rather than bringing zod in; the server validates with SignInSchema.
+interface SignInValues {
+  email: string;
+  password: string;
+}
+const EMAIL = /^[^\s@]+@[^\s@]+\.[^\s@]+$/;
+const emailRules = {
+  validate: (v: string) => (v.trim() === "" ? "Enter your email address." : EMAIL.test(v.trim()) ? true : "Enter a valid email address."),
+};
+const passwordRules = { required: "Enter your password." };
 
 interface SignInLocationState {
   from?: unknown;
@@ -65,7 +64,7 @@ export default function SignIn() {
     handleSubmit,
     setError,
     formState: { errors },
-  } = useForm<SignInValues>({ resolver: zodResolver(signInSchema) });
+  } = useForm<SignInValues>();
 
   if (user && !signIn.isPending) {
     return <Navigate to={destinationFor(user, state.from)} replace />;
@@ -114,7 +113,7 @@ export default function SignIn() {
               inputMode="email"
               invalid={Boolean(errors.email)}
               aria-describedby={describedBy("sign-in-email", undefined, errors.email?.message)}
-              {...register("email")}
+              {...register("email", emailRules)}
             />
           </Field>
           <Field id="sign-in-password" label="Password" error={errors.password?.message}>
@@ -124,7 +123,7 @@ export default function SignIn() {
               autoComplete="current-password"
               invalid={Boolean(errors.password)}
               aria-describedby={describedBy("sign-in-password", undefined, errors.password?.message)}
-              {...register("password")}
+              {...register("password", passwordRules)}
             />
           </Field>
           <Button type="submit" busy={signIn.isPending} className="w-full">

@@ -17,6 +17,7 @@ import { useFileUpload } from "./useFileUpload";
 import type { BatchView } from "./types";
 
 const CLOSED = ["released", "rejected"];
+const ATTACHERS = ["operator", "supervisor", "quality", "engineer"];
 
 function AttachForm({ view }: { view: BatchView }) {
   const ids = { file: useId(), step: useId(), note: useId() };
@@ -86,7 +87,7 @@ function AttachForm({ view }: { view: BatchView }) {
 /** Files attached to the batch (with their SHA-256), and a form to attach another. */
 export function AttachmentsPanel({ view }: { view: BatchView }) {
   const stepTitle = (key: string | null) => (key ? (view.steps.find((s) => s.key === key)?.title ?? key) : "The batch");
-  const canAttach = !CLOSED.includes(view.batch.state) && view.facts.roles.some((r) => r !== "admin");
+  const canAttach = !CLOSED.includes(view.batch.state) && view.facts.roles.some((r) => ATTACHERS.includes(r));
   return (
     <section aria-labelledby="attachments-title" className="flex flex-col gap-3 rounded-lg border-2 border-ink-200 bg-white p-5">
       <h2 id="attachments-title" className="text-xl font-bold">

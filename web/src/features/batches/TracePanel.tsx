@@ -1,6 +1,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { QueryState } from "../../components/QueryState";
 import { TraceChart } from "../../components/TraceChart";
+import { rateConstantUnit } from "../../../../shared/schemas/rateModels";
 import { formatNumber } from "../vessels/quantityFormat";
 import { batchTraceQueryOptions } from "./queries";
 import { TraceUploadForm } from "./TraceUploadForm";
@@ -13,6 +14,7 @@ export function TracePanel({ view }: { view: BatchView }) {
   const trace = useQuery(batchTraceQueryOptions(view.batch.id));
   const canUpload = (view.batch.state === "running" || view.batch.state === "sampling") && view.facts.roles.some((r) => UPLOADERS.includes(r));
   const data = trace.data;
+  const kUnit = rateConstantUnit(view.rateModel.content.order);
   return (
     <section aria-labelledby="trace-title" className="flex flex-col gap-4 rounded-lg border-2 border-ink-200 bg-white p-5">
       <h2 id="trace-title" className="text-xl font-bold">
@@ -29,7 +31,7 @@ export function TracePanel({ view }: { view: BatchView }) {
               <dd className="font-semibold">{data.forecast.message}</dd>
               <dt className="font-semibold">k</dt>
               <dd>
-                {formatNumber(data.forecast.k, 4)} {data.forecast.basis === "trace" ? "from the trace" : "from the model"}; model {formatNumber(data.kModel, 4)}
+                {formatNumber(data.forecast.k, 4)} {kUnit} {data.forecast.basis === "trace" ? "from the trace so far" : "from the model"}; the model gives {formatNumber(data.kModel, 4)} {kUnit}
               </dd>
               <dt className="font-semibold">Readings</dt>
               <dd>

@@ -1,10 +1,7 @@
 import { isOutOfLimit } from "../../../../shared/execution/entrySchema";
-import type { FieldDefinition } from "../../../../shared/schemas/masterRecords";
 import { formatLocal, formatUtc } from "../signatures/signatureTime";
 import { formatNumber } from "../vessels/quantityFormat";
 import type { BatchFieldView } from "./types";
-
-type NumberFieldView = Extract<FieldDefinition, { kind: "number" }> & BatchFieldView;
 
 function range(low: number | null, high: number | null, unit: string): string | null {
   const u = unit ? ` ${unit}` : "";
@@ -50,5 +47,3 @@ export function recordedValueText(field: BatchFieldView, value: unknown, fileNam
   if (field.kind === "attachment" && typeof value === "string") return fileName?.(value) ?? `file ${value.slice(0, 8)}…`;
   return String(value);
 }
-
-export type { NumberFieldView };

@@ -10,5 +10,6 @@ export function sourceWords(source: string): string {
   if (source === "person") return "Raised by a person";
   if (source === "relief-pressure") return "Raised by the relief-pressure check";
   if (source === "rated-volume") return "Raised by the rated-volume check";
+  if (source === "kinetics") return "Raised by the kinetics check";
   return `Raised by ${source}`;
 }

@@ -17,8 +17,8 @@ function Panel({ id, title, count, children }: { id: string; title: string; coun
 
 const Empty = ({ text }: { text: string }) => <p className="mt-1 text-ink-700">{text}</p>;
 
-/** A work list of batches, each linking to its batch page with its state. */
-export function BatchQueue({ id, title, batches, empty }: { id: string; title: string; batches: QueuedBatch[]; empty: string }) {
+/** A work list of batches, each linking to its batch page (or `hrefFor`'s screen) with its state. */
+export function BatchQueue({ id, title, batches, empty, hrefFor = (b) => `/batches/${b.id}` }: { id: string; title: string; batches: QueuedBatch[]; empty: string; hrefFor?: (b: QueuedBatch) => string }) {
   return (
     <Panel id={id} title={title} count={batches.length}>
       {batches.length === 0 ? (
@@ -27,7 +27,7 @@ export function BatchQueue({ id, title, batches, empty }: { id: string; title: s
         <ul className="mt-2 flex flex-col gap-1">
           {batches.map((b) => (
             <li key={b.id} className="flex flex-wrap items-center gap-3">
-              <Link to={`/batches/${b.id}`} className="inline-flex min-h-11 items-center text-lg font-semibold">
+              <Link to={hrefFor(b)} className="inline-flex min-h-11 items-center text-lg font-semibold">
                 {b.code}
               </Link>
               <BatchStateBadge state={b.state} />

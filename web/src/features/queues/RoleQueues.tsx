@@ -35,7 +35,7 @@ export function QualityQueues() {
     <QueryState isPending={queues.isPending} error={queues.error} onRetry={() => void queues.refetch()} what="your work list">
       {queues.data && (
         <div className="grid items-start gap-4 lg:grid-cols-2">
-          <BatchQueue id="queue-review" title="Batches in review" batches={queues.data.inReview} empty="No batch record waits for review." />
+          <BatchQueue id="queue-review" title="Batches in review" batches={queues.data.inReview} empty="No batch record waits for review." hrefFor={(b) => `/batches/${b.id}/review`} />
           <DeviationQueue id="queue-close" title="Deviations to close" items={queues.data.deviationsToClose} empty="No investigated deviation waits for closing." />
         </div>
       )}
