@@ -3,6 +3,7 @@ import { useEffect, useRef } from "react";
 import { useLocation, useParams } from "react-router";
 import { Breadcrumb } from "../components/Breadcrumb";
 import { QueryState } from "../components/QueryState";
+import { ButtonLink } from "../components/ButtonLink";
 import { PHASES } from "../../../shared/schemas/masterRecords";
 import { AttachmentsPanel } from "../features/batches/AttachmentsPanel";
 import { BatchHeader } from "../features/batches/BatchHeader";
@@ -56,6 +57,15 @@ function BatchRecord({ view, onStale }: { view: BatchView; onStale: () => void }
   return (
     <>
       <BatchHeader view={view} />
+      <nav aria-label="Records of this batch" className="flex flex-wrap gap-3">
+        {(state === "review" || state === "released" || state === "rejected") && <ButtonLink to={`/batches/${view.batch.id}/review`}>Open the review</ButtonLink>}
+        <a className="inline-flex min-h-11 items-center rounded-md px-3 font-semibold text-fen-700 underline" href={`/api/batches/${view.batch.id}/record.pdf`}>
+          Executed record (PDF)
+        </a>
+        <a className="inline-flex min-h-11 items-center rounded-md px-3 font-semibold text-fen-700 underline" href={`/api/batches/${view.batch.id}/record.json`}>
+          Complete record (JSON)
+        </a>
+      </nav>
       {(state === "planned" || state === "charging") && <VesselCaution view={view} moment="charging" />}
       <MoveBar view={view} onStale={onStale} />
       <CurrentPhase view={view} phase={phase} />
