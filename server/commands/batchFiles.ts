@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import type { Db } from "../db/client.js";
-import { batchAttachments, batchSamples, batchTraces, files } from "../db/schema.js";
+import { batchAttachments, batchSamples, batchTraces, batches, files } from "../db/schema.js";
 import type { StorageService } from "../services/storage.js";
 import { loadBatchRecord, type BatchRecord } from "./batchRecord.js";
 import { recordAudit, SYSTEM_ACTOR } from "./audit.js";
@@ -106,8 +106,10 @@ export function createBatchFiles(deps: { db: Db; storage: StorageService; notify
 
     async recordSample(person: SignedInPerson, batchId: string, input: { sampledAt: string; volume: { value: number; unit: "mL" | "L" | "m³" }; labResult?: string; fileId?: string }) {
       return deps.db.transaction(async (tx) => {
-        const record = await loadBatchRecord(tx, batchId, { forUpdate: true });
-        if (record.batch.state !== "running" && record.batch.state !== "sampling") throw conflict("wrong-phase", `Samples are recorded while the batch is running or sampling; it is ${record.batch.state}.`);
+        // Only the batch row is needed here: lock it so the state cannot move under the sample.
+        const [batch] = await tx.select({ state: batches.state }).from(batches).where(eq(batches.id, batchId)).for("update");
+        if (!batch) throw new HttpError(404, "not-found", "That batch was not found.");
+        if (batch.state !== "running" && batch.state !== "sampling") throw conflict("wrong-phase", `Samples are recorded while the batch is running or sampling; it is ${batch.state}.`);
         if (input.fileId) await fileOf(tx, input.fileId);
         const [row] = await tx.insert(batchSamples).values({ batchId, sampledAt: new Date(input.sampledAt), volumeL: toSI(input.volume.value, input.volume.unit), labResult: input.labResult ?? null, fileId: input.fileId ?? null, takenBy: person.id }).returning();
         await recordAudit(tx, person, { action: "sample-recorded", entityType: "batch", entityId: batchId, after: { sampleId: row.id, sampledAt: row.sampledAt.toISOString(), volumeL: row.volumeL, labResult: row.labResult, fileId: row.fileId } });

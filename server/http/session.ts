@@ -54,7 +54,7 @@ export function sessionMiddleware(opts: SessionOptions) {
       name: "isobatch.sid",
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       cookie: { httpOnly: true, sameSite: "lax", secure: opts.secureCookie, maxAge: 12 * 60 * 60_000 },
     }),
     idleTimeout(idleMs),
@@ -79,7 +79,8 @@ function idleTimeout(idleMs: number): RequestHandler {
       delete (s as { passport?: unknown }).passport;
       s.expiredAt = now;
     }
-    if (signedIn) s.lastSeenAt = now;
+    // Recorded to the minute's tenth at most, so a busy client does not rewrite its session on every request.
+    if (signedIn && (!s.lastSeenAt || now - s.lastSeenAt > Math.min(6000, idleMs / 10))) s.lastSeenAt = now;
     next();
   };
 }
