@@ -10,6 +10,7 @@ import { seedDemoBatches } from "./db/seedDemoBatches.js";
 import { createStorageService } from "./services/storage.js";
 import { createMailService } from "./services/mail.js";
 import { createApp } from "./app.js";
+import { sweepOrphanObjects } from "./services/orphanSweep.js";
 
 export interface Endpoints {
   databaseUrl: string;
@@ -64,6 +65,14 @@ export async function bootServer(env: Env, endpoints: Endpoints, log: Logger = p
     log,
   });
   mail.start();
+  // Hourly, objects without a row and over an hour old are removed (see orphanSweep.ts).
+  const sweep = setInterval(() => {
+    sweepOrphanObjects(database.db, storage, 3_600_000).then(
+      (removed) => removed.length && log.info({ removed: removed.length }, "removed file-store objects that had no record"),
+      (err) => log.warn({ err: (err as Error).message }, "orphan sweep did not finish; it runs again in an hour"),
+    );
+  }, 3_600_000);
+  sweep.unref();
   const server = await new Promise<Server>((ok, fail) => {
     const s = built.app.listen(env.PORT, env.HOST, () => ok(s));
     s.once("error", fail);
@@ -75,6 +84,7 @@ export async function bootServer(env: Env, endpoints: Endpoints, log: Logger = p
     close: async () => {
       await new Promise<void>((ok) => server.close(() => ok()));
       server.closeAllConnections?.();
+      clearInterval(sweep);
       await mail.stop();
       await built.close();
       storage.close();

@@ -1,4 +1,4 @@
-import { CreateBucketCommand, DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, S3Client } from "@aws-sdk/client-s3";
+import { CreateBucketCommand, DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
 import { Upload } from "@aws-sdk/lib-storage";
 import type { Readable } from "node:stream";
 
@@ -17,6 +17,8 @@ export interface StorageService {
   put(key: string, body: Readable, contentType: string): Promise<void>;
   get(key: string): Promise<Readable>;
   remove(key: string): Promise<void>;
+  /** Every object in the bucket with its last-modified time. */
+  list(): Promise<{ key: string; lastModified: Date }[]>;
   check(): Promise<void>;
   close(): void;
 }
@@ -48,6 +50,16 @@ export function createStorageService(opts: StorageOptions): StorageService {
     },
     remove: async (key) => {
       await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
+    },
+    list: async () => {
+      const out: { key: string; lastModified: Date }[] = [];
+      let token: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket: bucket, ContinuationToken: token }));
+        for (const o of page.Contents ?? []) if (o.Key) out.push({ key: o.Key, lastModified: o.LastModified ?? new Date(0) });
+        token = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (token);
+      return out;
     },
     check: async () => {
       await client.send(new HeadBucketCommand({ Bucket: bucket }));

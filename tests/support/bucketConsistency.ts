@@ -1,4 +1,4 @@
-import { DeleteObjectCommand, ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
+import { ListObjectsV2Command, S3Client } from "@aws-sdk/client-s3";
 import type { Db } from "../../server/db/client.js";
 import { files } from "../../server/db/schema.js";
 
@@ -32,14 +32,4 @@ export async function compareBucketWithFiles(db: Db, client: S3Client, bucket: s
   const objects = await listKeys(client, bucket);
   const rows = (await db.select({ key: files.storageKey }).from(files)).map((r) => r.key).sort();
   return { objects, rows, orphanObjects: objects.filter((k) => !rows.includes(k)), rowsWithoutObject: rows.filter((k) => !objects.includes(k)) };
-}
-
-/**
- * The sweep the server lacks: deletes objects that no files row names. (In service it would
- * spare objects younger than the longest upload, which may still be on their way to a row.)
- */
-export async function sweepOrphanObjects(db: Db, client: S3Client, bucket: string): Promise<string[]> {
-  const { orphanObjects } = await compareBucketWithFiles(db, client, bucket);
-  for (const key of orphanObjects) await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
-  return orphanObjects;
 }

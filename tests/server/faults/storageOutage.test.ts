@@ -6,7 +6,8 @@ import { startOwnServices, type OwnServices } from "../../support/ownServices.js
 import { firstOrderCsv } from "../../support/batchDriver.js";
 import { HttpSession } from "../../support/httpSession.js";
 import { startCuttingProxy, type CuttingProxy } from "../../support/cuttingProxy.js";
-import { compareBucketWithFiles, localS3Client, sweepOrphanObjects } from "../../support/bucketConsistency.js";
+import { compareBucketWithFiles, localS3Client } from "../../support/bucketConsistency.js";
+import { sweepOrphanObjects } from "../../../server/services/orphanSweep.js";
 import { buildPerson, type BuiltPerson } from "../../factories.js";
 
 // The file store goes away while files are being uploaded: the person gets a clear 503, and the
@@ -85,7 +86,7 @@ describe("the file store stopped during an upload", () => {
     expect(after.orphanObjects).toEqual([]);
   });
 
-  it("can leave an object without its row when the store dies after storing it but before answering: only a sweep removes it", async () => {
+  it("removes with the sweep an object left without its row when the store died after storing it but before answering", async () => {
     // The app writes to the store through a relay that drops the store's answer to the PUT;
     // the store is stopped at that moment, so the app's clean-up DELETE cannot reach it either.
     let proxy: CuttingProxy | undefined;
@@ -115,11 +116,12 @@ describe("the file store stopped during an upload", () => {
       const after = await compareBucketWithFiles(t.database.db, s3, BUCKET);
       expect(after.rows).toEqual(before.rows); // no row was written
       expect(after.rowsWithoutObject).toEqual([]);
-      // The gap: the stored object has no row, and nothing in the server will ever remove it.
+      // The stored object has no row: only the server's sweep removes it.
       expect(after.orphanObjects).toHaveLength(1);
       expect(after.orphanObjects[0]).toMatch(/^files\/[0-9a-f-]{36}$/);
 
-      const swept = await sweepOrphanObjects(t.database.db, s3, BUCKET);
+      expect(await sweepOrphanObjects(t.database.db, t.storage, 3_600_000)).toEqual([]); // too young to be judged an orphan
+      const swept = await sweepOrphanObjects(t.database.db, t.storage, 0);
       expect(swept).toEqual(after.orphanObjects);
       const clean = await compareBucketWithFiles(t.database.db, s3, BUCKET);
       expect(clean.orphanObjects).toEqual([]);
