@@ -1,6 +1,7 @@
 import { rateConstantUnit, type FitResult } from "./fitResult.js";
 import { assertFittable, type ChargeSetup } from "./fitSetup.js";
-import { levenbergMarquardt, type LevenbergMarquardtResult } from "./levenbergMarquardt.js";
+import { refineClosedForm } from "./closedFormRefinement.js";
+import { levenbergMarquardt } from "./levenbergMarquardt.js";
 import { residualsAt } from "./residuals.js";
 import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
@@ -19,13 +20,14 @@ const MAX_FITTED_ORDER = 6;
 /** Above this many points a thinned copy is fitted first to get close cheaply. */
 const THIN_ABOVE = 20_000;
 const THIN_TARGET = 4_000;
+/** Converged when a full Gauss–Newton step is at most this fraction of k (as in the LM fit). */
+const STEP_TOLERANCE = 1e-10;
 
 /** Nonlinear least-squares fit of k (and optionally n) to the observed volumes. */
 export function fitVolumes(trace: Trace, options: VolumeFitOptions): FitResult {
   const fitOrder = options.fitOrder ?? false;
   assertFittable(options, options.order, fitOrder);
-  const { V0, epsilonA, cA0 } = options;
-  const selected = selectFitPoints(trace, { V0, epsilonA });
+  const selected = selectFitPoints(trace, { V0: options.V0, epsilonA: options.epsilonA });
   const warnings = [...selected.warnings];
   const parameterCount = fitOrder ? 2 : 1;
   const n = selected.t.length;
@@ -34,40 +36,87 @@ export function fitVolumes(trace: Trace, options: VolumeFitOptions): FitResult {
     return emptyResult(options.order, fitOrder, n, selected.excluded, warnings);
   }
   if (n < 5) warnings.push(`too few points: only ${n} usable.`);
-  const k0 = options.initialK ?? estimateInitialK(selected.t, selected.V, options);
-  let start = fitOrder ? [k0, options.order] : [k0];
-  const lower = fitOrder ? [0, 0] : [0];
-  const upper = fitOrder ? [Number.POSITIVE_INFINITY, MAX_FITTED_ORDER] : [Number.POSITIVE_INFINITY];
-  if (n > THIN_ABOVE) {
-    const coarse = thinPoints(selected.t, selected.V, THIN_TARGET);
-    const rough = levenbergMarquardt(createVolumeModel({ ...coarse, V0, epsilonA, cA0, order: options.order, fitOrder }), {
-      initial: start, lower, upper, stepTolerance: 1e-8,
-    });
-    if (rough.params.every(Number.isFinite)) start = Array.from(rough.params);
-  }
-  const model = createVolumeModel({ t: selected.t, V: selected.V, V0, epsilonA, cA0, order: options.order, fitOrder });
-  const solution = levenbergMarquardt(model, { initial: start, lower, upper });
-  if (!solution.converged) warnings.push(`did not converge: ${solution.message}.`);
-  return summarise(solution, selected.t, selected.V, options, fitOrder, selected.excluded, warnings);
+  const problem: VolumeProblem = { t: selected.t, V: selected.V, setup: options, fitOrder };
+  const start = startingParams(problem);
+  const solution = (n > THIN_ABOVE ? refineDirectly(problem, start) : undefined) ?? fitByLevenbergMarquardt(problem, start, warnings);
+  return summarise(solution, options, fitOrder, selected.excluded, warnings);
+}
+
+/** The usable points and what is fitted to them. */
+interface VolumeProblem {
+  t: Float64Array;
+  V: Float64Array;
+  setup: VolumeFitOptions;
+  fitOrder: boolean;
+}
+
+/** A converged (or last) point of either fitting route with its residuals. */
+interface VolumeSolution {
+  params: ArrayLike<number>;
+  residuals: Float64Array;
+  ssr: number;
+  sst: number;
+  /** (JᵀJ)⁻¹, row-major; undefined when singular. */
+  inverse: Float64Array | undefined;
+  converged: boolean;
+  iterations: number;
+}
+
+function bounds(fitOrder: boolean): { lower: number[]; upper: number[] } {
+  return fitOrder
+    ? { lower: [0, 0], upper: [Number.POSITIVE_INFINITY, MAX_FITTED_ORDER] }
+    : { lower: [0], upper: [Number.POSITIVE_INFINITY] };
+}
+
+/** [k] or [k, n] to start from: estimated, then, for many points, fitted to a thinned copy. */
+function startingParams({ t, V, setup, fitOrder }: VolumeProblem): number[] {
+  const k0 = setup.initialK ?? estimateInitialK(t, V, setup);
+  const start = fitOrder ? [k0, setup.order] : [k0];
+  if (t.length <= THIN_ABOVE) return start;
+  const coarse = thinPoints(t, V, THIN_TARGET);
+  const model = createVolumeModel({ ...coarse, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0, order: setup.order, fitOrder });
+  const rough = levenbergMarquardt(model, { initial: start, ...bounds(fitOrder), stepTolerance: 1e-8 });
+  return rough.params.every(Number.isFinite) ? Array.from(rough.params) : start;
+}
+
+/**
+ * For a closed-form order at fixed n: Gauss–Newton on the full data from the thinned fit, one
+ * fused pass per step; undefined (so the full LM runs) when a step fails to lower the residuals.
+ */
+function refineDirectly({ t, V, setup, fitOrder }: VolumeProblem, start: number[]): VolumeSolution | undefined {
+  const order = setup.order;
+  if (fitOrder || !(order === 0 || order === 1 || order === 2)) return undefined;
+  const fast = refineClosedForm({ order, t, V, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0 }, start[0], STEP_TOLERANCE);
+  if (fast.outcome !== "converged") return undefined;
+  const { k, residuals, ssr, sst, jtj, steps } = fast;
+  return { params: [k], residuals, ssr, sst, inverse: Float64Array.of(1 / jtj), converged: true, iterations: steps };
+}
+
+/** Levenberg–Marquardt over all points, then the residuals at the solution. */
+function fitByLevenbergMarquardt({ t, V, setup, fitOrder }: VolumeProblem, start: number[], warnings: string[]): VolumeSolution {
+  const { V0, epsilonA, cA0 } = setup;
+  const model = createVolumeModel({ t, V, V0, epsilonA, cA0, order: setup.order, fitOrder });
+  const lm = levenbergMarquardt(model, { initial: start, ...bounds(fitOrder), stepTolerance: STEP_TOLERANCE });
+  if (!lm.converged) warnings.push(`did not converge: ${lm.message}.`);
+  const order = fitOrder ? lm.params[1] : setup.order;
+  const { residuals, ssr, sst } = residualsAt(t, V, { order, k: lm.params[0], epsilonA, V0, cA0 });
+  return { params: lm.params, residuals, ssr, sst, inverse: lm.inverseNormalMatrix, converged: lm.converged, iterations: lm.iterations };
 }
 
 function summarise(
-  solution: LevenbergMarquardtResult,
-  t: Float64Array,
-  V: Float64Array,
+  solution: VolumeSolution,
   setup: VolumeFitOptions,
   fitOrder: boolean,
   excluded: number,
   warnings: string[],
 ): FitResult {
+  const { residuals, ssr, sst, inverse } = solution;
   const k = solution.params[0];
   const order = fitOrder ? solution.params[1] : setup.order;
-  const n = t.length;
+  const n = residuals.length;
   const p = fitOrder ? 2 : 1;
-  const { residuals, ssr, sst } = residualsAt(t, V, { order, k, epsilonA: setup.epsilonA, V0: setup.V0, cA0: setup.cA0 });
   const dof = n - p;
   const variance = ssr / dof;
-  const inverse = solution.inverseNormalMatrix;
   const kStdError = inverse === undefined ? Number.NaN : Math.sqrt(variance * inverse[0]);
   const tq = t95(dof);
   const result: FitResult = {
