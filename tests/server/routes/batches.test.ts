@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { startTestApp, Client, type TestApp } from "../../support/testApp.js";
+import { startTestApp, type TestApp } from "../../support/testApp.js";
 import { buildPlannedBatch } from "../../factories.js";
 import { BatchDriver, demoEntries, firstOrderCsv } from "../../support/batchDriver.js";
 import { auditEvents, batches, mailOutbox, people as peopleTable, stepEntries } from "../../../server/db/schema.js";

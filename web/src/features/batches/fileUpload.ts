@@ -1,4 +1,4 @@
-import { csrfToken, errorFromBody, isCsrfRefusal, reportAuthRefusal } from "./detailedRequest";
+import { csrfToken, errorFromBody, isCsrfRefusal, reportAuthRefusal } from "./uploadSupport";
 import { newIdempotencyKey } from "../../api/client";
 import type { UploadedFile } from "./types";
 

@@ -1,10 +1,9 @@
 import { ApiError } from "../../api/client";
 import type { Refusal } from "../../../../shared/machines/batchMoves";
-import { DetailedApiError } from "./detailedRequest";
 
 /** The reasons a refused move carries (error.refusals), if any. */
 export function refusalsOf(error: unknown): Refusal[] {
-  if (!(error instanceof DetailedApiError)) return [];
+  if (!(error instanceof ApiError)) return [];
   const list = error.details.refusals;
   return Array.isArray(list) ? list.filter((r): r is Refusal => typeof r?.message === "string") : [];
 }

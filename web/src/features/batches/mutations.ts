@@ -4,7 +4,7 @@ import type { BatchEventInput } from "../../../../shared/schemas/batches";
 import { auditKeys } from "../audit/queries";
 import { deviationKeys } from "../deviations/queries";
 import { queueKeys } from "../queues/queries";
-import { postWithDetails } from "./detailedRequest";
+
 import { batchKeys } from "./queries";
 import type { BatchView, TraceAdded } from "./types";
 
@@ -34,7 +34,7 @@ function useBatchChange<TInput, TResult>(batchId: string, send: (input: TInput) 
 
 /** POST /api/batches/:id/events: one lifecycle move at the revision shown (refusals kept in the error). */
 export function useBatchMoveMutation(batchId: string) {
-  return useBatchChange(batchId, (input: BatchEventInput) => postWithDetails<BatchView>(`${batchPath(batchId)}/events`, input));
+  return useBatchChange(batchId, (input: BatchEventInput) => apiPost<BatchView>(`${batchPath(batchId)}/events`, input));
 }
 
 export interface StepEntryBody {
@@ -74,7 +74,7 @@ export function useAttachFileMutation(batchId: string) {
 
 /** POST /api/batches/:id/traces: adds an uploaded logger CSV (a 422 keeps error.problems). */
 export function useAddTraceMutation(batchId: string) {
-  return useBatchChange(batchId, (body: { fileId: string }) => postWithDetails<{ trace: TraceAdded }>(`${batchPath(batchId)}/traces`, body));
+  return useBatchChange(batchId, (body: { fileId: string }) => apiPost<{ trace: TraceAdded }>(`${batchPath(batchId)}/traces`, body));
 }
 
 /** POST /api/batches/:id/samples: records a sample taken during the run or sampling. */

@@ -1,5 +1,5 @@
 import { useCallback, useRef, useState } from "react";
-import { DetailedApiError } from "./detailedRequest";
+import { ApiError } from "../../api/client";
 import { uploadFile, type UploadProgress } from "./fileUpload";
 import { precheckFile } from "./uploadCheck";
 import type { UploadedFile } from "./types";
@@ -12,9 +12,9 @@ export function useFileUpload(kind: "attachment" | "trace") {
 
   const upload = useCallback(
     async (file: File): Promise<UploadedFile> => {
-      if (busy.current) throw new DetailedApiError(0, "upload-busy", "A file is already being uploaded; wait for it to finish.", "file", {});
+      if (busy.current) throw new ApiError(0, "upload-busy", "A file is already being uploaded; wait for it to finish.", "file", {});
       const problem = precheckFile(file, kind);
-      if (problem) throw new DetailedApiError(0, "precheck", problem, "file", {});
+      if (problem) throw new ApiError(0, "precheck", problem, "file", {});
       busy.current = true;
       setUploaded(null);
       setProgress({ sent: 0, total: file.size });

@@ -1,15 +1,11 @@
-import { Caution } from "../../components/Caution";
+import { CheckFigureList, CheckNotesAndNotice } from "../kinetics/CheckFigureList";
 import type { AnalysisOutcome } from "../kinetics/runAnalysis";
 import { formatUtc } from "../signatures/signatureTime";
-import { formatNumber } from "../vessels/quantityFormat";
 import type { ReviewCheckView } from "./types";
-
-const mL = (litres: number | null) => (litres === null ? "—" : `${formatNumber(litres * 1000, 4)} mL`);
 
 /** The check's verdict in words with every reason, its key figures, what it ran on, and its notice. */
 export function CheckFigures({ check, outcome }: { check: ReviewCheckView; outcome: AnalysisOutcome }) {
   const within = check.verdict === "within";
-  const [lo, hi] = check.kObservedCI95;
   return (
     <div className="flex flex-col gap-4">
       <div className={`rounded-lg border-l-8 px-5 py-4 ${within ? "border-ok-800 bg-ok-50 text-ok-800" : "border-alarm-800 bg-alarm-50 text-alarm-800"}`}>
@@ -30,26 +26,7 @@ export function CheckFigures({ check, outcome }: { check: ReviewCheckView; outco
           </ol>
         )}
       </div>
-      <dl className="grid gap-x-6 gap-y-1 rounded-lg border-2 border-ink-200 bg-white p-5 sm:grid-cols-[max-content_1fr]">
-        <dt className="font-semibold">Observed k</dt>
-        <dd className="tabular-nums">
-          {formatNumber(check.kObserved, 5)} {outcome.kUnit}
-          {lo !== null && hi !== null && ` (95 % interval ${formatNumber(lo, 5)} to ${formatNumber(hi, 5)})`}
-        </dd>
-        <dt className="font-semibold">Model k at the set temperature</dt>
-        <dd className="tabular-nums">
-          {formatNumber(check.kModel, 5)} {outcome.kUnit}
-        </dd>
-        <dt className="font-semibold">Deviation</dt>
-        <dd className="tabular-nums">{check.deviationPct === null ? "—" : `${formatNumber(check.deviationPct, 3)} %`}</dd>
-        <dt className="font-semibold">Residual RMS of the fit</dt>
-        <dd className="tabular-nums">
-          {mL(check.residualRms)} (limit {mL(outcome.residualRmsMax)})
-        </dd>
-        <dt className="font-semibold">Points used</dt>
-        <dd className="tabular-nums">{check.points.toLocaleString("en-GB")}</dd>
-        <dt className="font-semibold">Highest conversion read from the volume</dt>
-        <dd className="tabular-nums">{formatNumber(check.maxConversion, 3)}</dd>
+      <CheckFigureList figures={{ ...check, kUnit: outcome.kUnit, residualRmsMax: outcome.residualRmsMax }}>
         <dt className="font-semibold">Ran at</dt>
         <dd>{formatUtc(check.ranAt)}</dd>
         <dt className="font-semibold">Kinetics library</dt>
@@ -64,17 +41,8 @@ export function CheckFigures({ check, outcome }: { check: ReviewCheckView; outco
             ))}
           </ul>
         </dd>
-      </dl>
-      {outcome.notes.length > 0 && (
-        <ul className="list-disc pl-6 text-ink-800">
-          {outcome.notes.map((n) => (
-            <li key={n}>{n}</li>
-          ))}
-        </ul>
-      )}
-      <Caution title="Caution: this check is an aid to review">
-        <p>{check.result.notice}</p>
-      </Caution>
+      </CheckFigureList>
+      <CheckNotesAndNotice notes={outcome.notes} notice={check.result.notice} />
     </div>
   );
 }
