@@ -3,6 +3,7 @@ import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
 import { fileURLToPath } from "node:url";
 import * as schema from "./schema.js";
+import { releaseClientsOnFailedBegin } from "./releaseOnFailedBegin.js";
 
 export type Db = NodePgDatabase<typeof schema>;
 /** A transaction handle, as `db.transaction` passes it. */
@@ -18,6 +19,7 @@ export interface Database {
 
 /** Opens a connection pool; a dropped connection is logged, never fatal. */
 export function createDatabase(url: string, onPoolError: (err: Error) => void = () => undefined, max = 10): Database {
+  releaseClientsOnFailedBegin();
   const pool = new pg.Pool({ connectionString: url, max, connectionTimeoutMillis: 5000, idleTimeoutMillis: 30_000 });
   pool.on("error", onPoolError);
   // pg-pool listens for errors only on idle clients; a checked-out one that loses its connection would otherwise throw an uncaught 'error'.

@@ -28,9 +28,9 @@ export function fromZod(err: ZodError): HttpError {
 
 export const notFoundRoute: RequestHandler = (req, _res, next) => next(new HttpError(404, "no-such-route", `No API route ${req.method} ${req.path}.`));
 
-// PostgreSQL error classes that mean "the database is not there right now".
 const unavailableCodes = new Set(["57P01", "57P02", "57P03", "08000", "08001", "08003", "08006", "53300"]);
-const isDbUnavailable = (err: any) =>
+/** True for PostgreSQL and socket errors that mean "the database is not there right now". */
+export const isDbUnavailable = (err: any) =>
   unavailableCodes.has(err?.code) || ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(err?.code) || /Connection terminated|timeout exceeded when trying to connect|is not queryable/i.test(String(err?.message));
 
 /** The one error shape: `{ error: { code, message, field? } }`; never a stack trace. */
