@@ -1,4 +1,5 @@
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
+import { randomUUID } from "node:crypto";
 import type { Db } from "../db/client.js";
 import { batchAttachments, batchSamples, batchTraces, batches, files } from "../db/schema.js";
 import type { StorageService } from "../services/storage.js";
@@ -8,19 +9,19 @@ import { raiseDeviation } from "./deviationRecorder.js";
 import type { Notifier } from "./notifier.js";
 import { combinedTrace } from "./batchTrace.js";
 import { runKineticsCheck } from "./kineticsGate.js";
-import { announce } from "../services/live.js";
+import { announce, notifyCall } from "../services/live.js";
 import { conflict, HttpError } from "../http/errors.js";
 import { createTraceCsvParser, type ParsedTrace } from "../../shared/kinetics/traceCsvParser.js";
 import { checkTrace } from "../../shared/kinetics/checkTrace.js";
 import { checkConditionsFor, checkModelFor } from "../../shared/execution/modelAtBatch.js";
 import { toSI, fromSI } from "../../shared/units/index.js";
 import type { SignedInPerson } from "../policies/access.js";
-import type { Tx } from "../db/client.js";
+import type { DbOrTx, Tx } from "../db/client.js";
 
 const ACTIVE = ["charging", "running", "sampling", "review"];
 const fmtBar = (pa: number) => `${fromSI(pa, "bar(a)").toFixed(3)} bar(a)`;
 
-async function fileOf(tx: Tx, fileId: string) {
+async function fileOf(tx: DbOrTx, fileId: string) {
   const [file] = await tx.select().from(files).where(eq(files.id, fileId));
   if (!file) throw new HttpError(422, "unknown-file", "fileId: no uploaded file has this id. Upload it first (POST /api/files).", "fileId");
   return file;
@@ -105,17 +106,30 @@ export function createBatchFiles(deps: { db: Db; storage: StorageService; notify
     },
 
     async recordSample(person: SignedInPerson, batchId: string, input: { sampledAt: string; volume: { value: number; unit: "mL" | "L" | "m³" }; labResult?: string; fileId?: string }) {
-      return deps.db.transaction(async (tx) => {
-        // Only the batch row is needed here: lock it so the state cannot move under the sample.
-        const [batch] = await tx.select({ state: batches.state }).from(batches).where(eq(batches.id, batchId)).for("update");
-        if (!batch) throw new HttpError(404, "not-found", "That batch was not found.");
-        if (batch.state !== "running" && batch.state !== "sampling") throw conflict("wrong-phase", `Samples are recorded while the batch is running or sampling; it is ${batch.state}.`);
-        if (input.fileId) await fileOf(tx, input.fileId);
-        const [row] = await tx.insert(batchSamples).values({ batchId, sampledAt: new Date(input.sampledAt), volumeL: toSI(input.volume.value, input.volume.unit), labResult: input.labResult ?? null, fileId: input.fileId ?? null, takenBy: person.id }).returning();
-        await recordAudit(tx, person, { action: "sample-recorded", entityType: "batch", entityId: batchId, after: { sampleId: row.id, sampledAt: row.sampledAt.toISOString(), volumeL: row.volumeL, labResult: row.labResult, fileId: row.fileId } });
-        await announce(tx, { kind: "batch", id: batchId });
-        return row;
-      });
+      // Files are never deleted, so one found now is there when the sample is written.
+      if (input.fileId) await fileOf(deps.db, input.fileId);
+      const sample = { id: randomUUID(), batchId, sampledAt: new Date(input.sampledAt), volumeL: toSI(input.volume.value, input.volume.unit), labResult: input.labResult ?? null, fileId: input.fileId ?? null, takenBy: person.id };
+      const after = { sampleId: sample.id, sampledAt: sample.sampledAt.toISOString(), volumeL: sample.volumeL, labResult: sample.labResult, fileId: sample.fileId };
+      // Samples are the floor's most frequent write: one statement (its own transaction) locks the
+      // batch row, checks its state, writes the sample and its audit row, and announces the change.
+      const result = await deps.db.execute<{ state: string; recorded_at: Date | null }>(sql`
+        with target as (select id, state from batches where id = ${batchId} for update),
+        sample as (
+          insert into batch_samples (id, batch_id, sampled_at, volume_l, lab_result, file_id, taken_by)
+          select ${sample.id}::uuid, target.id, ${after.sampledAt}::timestamptz, ${sample.volumeL}::double precision, ${sample.labResult}::text, ${sample.fileId}::uuid, ${person.id}::uuid
+          from target where target.state in ('running', 'sampling')
+          returning id, recorded_at),
+        audited as (
+          insert into audit_events (actor_id, actor_name, action, entity_type, entity_id, after)
+          select ${person.id}::uuid, ${person.name}, 'sample-recorded', 'batch', ${batchId}, ${JSON.stringify(after)}::jsonb from sample
+          returning seq),
+        announced as (select ${notifyCall({ kind: "batch", id: batchId })} from audited)
+        select target.state, sample.recorded_at, (select count(*) from announced) as announced
+        from target left join sample on true`);
+      const [row] = result.rows;
+      if (!row) throw new HttpError(404, "not-found", "That batch was not found.");
+      if (!row.recorded_at) throw conflict("wrong-phase", `Samples are recorded while the batch is running or sampling; it is ${row.state}.`);
+      return { ...sample, recordedAt: new Date(row.recorded_at) };
     },
   };
 }

@@ -1,5 +1,5 @@
 import session from "express-session";
-import connectPgSimple from "connect-pg-simple";
+import { createSessionStore } from "./sessionStore.js";
 import passport from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
 import type { CheckCredentials } from "../commands/credentialChecker.js";
@@ -24,8 +24,7 @@ export interface SessionOptions {
 
 /** Sessions in PostgreSQL, passport on top, idle timeout and CSRF check: in that order. */
 export function sessionMiddleware(opts: SessionOptions) {
-  const PgStore = connectPgSimple(session);
-  const store = new PgStore({ pool: opts.pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const { store, takePerson } = createSessionStore(opts.pool);
   const instance: passport.Authenticator = new passport.Passport();
   instance.use(
     new LocalStrategy({ usernameField: "email", passwordField: "password" }, (email, password, done) => {
@@ -36,9 +35,11 @@ export function sessionMiddleware(opts: SessionOptions) {
     }),
   );
   instance.serializeUser<string>((user, done) => done(null, (user as SignedInPerson).id));
-  instance.deserializeUser<string>(async (id, done) => {
+  instance.deserializeUser<string>(async (req: Express.Request & { sessionID?: string }, id: string, done: (err: unknown, user?: SignedInPerson | false) => void) => {
     try {
-      const row = await opts.db.query.people.findFirst({ where: eq(people.id, id) });
+      // Normally read with the session itself (one query); looked up alone when it was not.
+      const read = req.sessionID ? takePerson(req.sessionID) : undefined;
+      const row = read !== undefined ? (read?.id === id ? read : null) : await opts.db.query.people.findFirst({ where: eq(people.id, id) });
       // A deactivated or locked person is signed out on their next request.
       if (!row || !row.active || row.lockedAt) return done(null, false);
       done(null, toSignedInPerson(row));
@@ -65,7 +66,7 @@ export function sessionMiddleware(opts: SessionOptions) {
   return { handlers, passport: instance, store, close: () => (store as unknown as { close(): void }).close() };
 }
 
-export function toSignedInPerson(row: typeof people.$inferSelect): SignedInPerson {
+export function toSignedInPerson(row: Pick<typeof people.$inferSelect, "id" | "email" | "name" | "roles" | "mustChangePassword">): SignedInPerson {
   return { id: row.id, email: row.email, name: row.name, roles: row.roles as Role[], mustChangePassword: row.mustChangePassword };
 }
 

@@ -1,5 +1,5 @@
 import type pg from "pg";
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { DbOrTx } from "../db/client.js";
 
 const CHANNEL = "isobatch_changes";
@@ -9,9 +9,14 @@ export interface Change {
   id: string;
 }
 
+/** The NOTIFY call for a change, for statements that announce as they write (see `recordAudit`). */
+export function notifyCall(change: Change): SQL {
+  return sql`pg_notify(${CHANNEL}, ${JSON.stringify(change)})`;
+}
+
 /** Announces a change when the caller's transaction commits (PostgreSQL NOTIFY), to every app server. */
 export async function announce(tx: DbOrTx, change: Change): Promise<void> {
-  await tx.execute(sql`select pg_notify(${CHANNEL}, ${JSON.stringify(change)})`);
+  await tx.execute(sql`select ${notifyCall(change)}`);
 }
 
 /**

@@ -1,10 +1,13 @@
 import { z } from "zod";
-import { BATCH_MOVES } from "../machines/batchMoves.js";
+import { BATCH_MOVES, type BatchMove } from "../machines/batchMoves.js";
 import { finite, Uuid } from "./common.js";
 import { ReasonSchema } from "./people.js";
 import { VOLUME_UNITS } from "../units/index.js";
 
 const Password = z.string({ error: "is required: re-enter your password to sign" }).min(1, "is required: re-enter your password to sign").max(256);
+
+/** Moves that change the course of a batch need a reason: holding it, resuming it, rejecting it. */
+export const MOVES_WITH_REASON: readonly BatchMove[] = ["HOLD", "RESUME", "REJECT"];
 
 /** A move of the lifecycle, with the batch revision the person saw (optimistic locking). */
 export const BatchEventSchema = z
@@ -16,7 +19,7 @@ export const BatchEventSchema = z
     comment: z.string().trim().max(2000).optional(),
   })
   .superRefine((e, ctx) => {
-    if ((e.move === "HOLD" || e.move === "REJECT") && (!e.reason || e.reason.length < 3)) ctx.addIssue({ code: "custom", path: ["reason"], message: "is required: say why" });
+    if (MOVES_WITH_REASON.includes(e.move) && (!e.reason || e.reason.length < 3)) ctx.addIssue({ code: "custom", path: ["reason"], message: "is required: say why" });
     if ((e.move === "RESUME" || e.move === "RELEASE" || e.move === "REJECT") && !e.password) ctx.addIssue({ code: "custom", path: ["password"], message: "is required: re-enter your password to sign" });
   });
 export type BatchEventInput = z.infer<typeof BatchEventSchema>;

@@ -128,9 +128,10 @@ describe("executing a batch", () => {
     expect(held.body.batch).toMatchObject({ state: "held", heldFrom: "running", holdReason: "temperature controller alarm" });
     const mails = await t.database.db.select().from(mailOutbox).where(eq(mailOutbox.to, people.sup.email));
     expect(mails.some((m) => m.subject.includes(`${batch.code} is on hold`))).toBe(true);
-    expect((await d.move("op", batch.id, "RESUME", { password: people.op.password })).status).toBe(403);
-    expect((await d.move("sup", batch.id, "RESUME")).body.error.field).toBe("password");
-    const resumed = await d.move("sup", batch.id, "RESUME", { password: people.sup.password, comment: "controller replaced" });
+    expect((await d.move("op", batch.id, "RESUME", { password: people.op.password, reason: "controller replaced" })).status).toBe(403);
+    expect((await d.move("sup", batch.id, "RESUME", { password: people.sup.password })).body.error.field).toBe("reason");
+    expect((await d.move("sup", batch.id, "RESUME", { reason: "controller replaced" })).body.error.field).toBe("password");
+    const resumed = await d.move("sup", batch.id, "RESUME", { password: people.sup.password, reason: "controller replaced" });
     expect(resumed.status).toBe(200);
     expect(resumed.body.batch.state).toBe("running");
   });
@@ -250,6 +251,32 @@ describe("the trace, attachments and samples", () => {
     const view = (await clients.op.get(`/api/batches/${batch.id}`)).body;
     expect(view.attachments[0]).toMatchObject({ stepKey: "pressurise", file: { name: "gauge.png", sha256: photo.sha256 } });
     expect(view.samples[0].labResult).toBe("MON 97.1 % (GC)");
+  });
+
+  it("writes a sample with its audit row and live announcement, and refuses one before the run or on an unknown batch", async () => {
+    const { batch } = await buildPlannedBatch(t.database.db);
+    const body = { sampledAt: now(), volume: { value: 30.5, unit: "L" }, labResult: "MON 97.1 % (GC)" };
+    const early = await clients.op.post(`/api/batches/${batch.id}/samples`, body);
+    expect(early.status).toBe(409);
+    expect(early.body.error.message).toContain("it is planned");
+    expect((await clients.op.post(`/api/batches/00000000-0000-4000-8000-000000000000/samples`, body)).status).toBe(404);
+    await chargeAndRun(batch.id);
+    expect((await clients.op.post(`/api/batches/${batch.id}/samples`, { ...body, fileId: "00000000-0000-4000-8000-000000000000" })).body.error.field).toBe("fileId");
+    const listener = await t.database.pool.connect();
+    const heard: string[] = [];
+    listener.on("notification", (m) => heard.push(m.payload ?? ""));
+    await listener.query("listen isobatch_changes");
+    try {
+      const res = await clients.op.post(`/api/batches/${batch.id}/samples`, body);
+      expect(res.status).toBe(201);
+      const [row] = await t.database.db.select().from(auditEvents).where(and(eq(auditEvents.action, "sample-recorded"), eq(auditEvents.entityId, batch.id)));
+      expect(row.after).toEqual({ sampleId: res.body.sample.id, sampledAt: body.sampledAt, volumeL: 30.5, labResult: "MON 97.1 % (GC)", fileId: null });
+      expect(row.actorId).toBe(people.op.id);
+      await expect.poll(() => heard).toContainEqual(JSON.stringify({ kind: "batch", id: batch.id }));
+      expect((await clients.op.get(`/api/batches/${batch.id}`)).body.samples).toHaveLength(1);
+    } finally {
+      listener.release();
+    }
   });
 
   it("takes a batch all the way to review and tells quality", async () => {

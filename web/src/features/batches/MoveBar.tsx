@@ -3,7 +3,7 @@ import { Button } from "../../components/Button";
 import { Notice } from "../../components/Notice";
 import { SignatureDialog } from "../../components/SignatureDialog";
 import { MOVE_LABELS, type BatchMove } from "../../../../shared/machines/batchMoves";
-import { BatchEventSchema, type BatchEventInput } from "../../../../shared/schemas/batches";
+import { BatchEventSchema, MOVES_WITH_REASON, type BatchEventInput } from "../../../../shared/schemas/batches";
 import type { SignatureMeaning } from "../../../../shared/schemas/common";
 import { errorMessage } from "../../lib/serverFieldErrors";
 import { STATE_WORDS } from "./batchStates";
@@ -14,8 +14,13 @@ import type { BatchView } from "./types";
 import { useBatchMoves, type OfferedMove } from "./useBatchMoves";
 
 const SIGNED: Partial<Record<BatchMove, SignatureMeaning>> = { RESUME: "resumed", RELEASE: "released", REJECT: "rejected" };
-const WITH_REASON: BatchMove[] = ["HOLD", "REJECT"];
 const DANGER: BatchMove[] = ["HOLD", "REJECT"];
+
+const REASON_DIALOG: Partial<Record<BatchMove, { title: (code: string) => string; intro: string }>> = {
+  HOLD: { title: (code) => `Put batch ${code} on hold`, intro: "Say why the batch is held. Work stops until a supervisor resumes it with a signature; the supervisors are told by mail." },
+  RESUME: { title: (code) => `Resume batch ${code}`, intro: "Say what was done about the cause of the hold. You then sign the resumption with your password." },
+  REJECT: { title: (code) => `Reject batch ${code}`, intro: "Say why the batch is rejected. You then sign the rejection with your password." },
+};
 
 type Message = { tone: "success" | "error" | "info"; title?: string; text: string; reasons?: string[] };
 type Open = { move: BatchMove; step: "reason" | "sign"; reason?: string } | null;
@@ -51,7 +56,7 @@ export function MoveBar({ view, onStale }: { view: BatchView; onStale: () => voi
 
   const press = (m: OfferedMove) => {
     setMessage(null);
-    if (WITH_REASON.includes(m.move)) return setOpen({ move: m.move, step: "reason" });
+    if (MOVES_WITH_REASON.includes(m.move)) return setOpen({ move: m.move, step: "reason" });
     if (SIGNED[m.move]) return setOpen({ move: m.move, step: "sign" });
     send({ move: m.move }).catch((error) => {
       const reasons = refusalsOf(error).map((r) => r.message);
@@ -86,17 +91,13 @@ export function MoveBar({ view, onStale }: { view: BatchView; onStale: () => voi
       <MoveChoices key={`${batch.state}:${batch.heldFrom ?? ""}`} view={view} busy={mutation.isPending} onPress={press} />
       <ReasonDialog
         open={open?.step === "reason"}
-        title={open?.move === "REJECT" ? `Reject batch ${batch.code}` : `Put batch ${batch.code} on hold`}
-        intro={
-          open?.move === "REJECT"
-            ? "Say why the batch is rejected. You then sign the rejection with your password."
-            : "Say why the batch is held. Work stops until a supervisor resumes it with a signature; the supervisors are told by mail."
-        }
-        submitLabel={open?.move === "REJECT" ? "Continue to signature" : "Put on hold"}
-        danger
+        title={open ? REASON_DIALOG[open.move]?.title(batch.code) ?? "" : ""}
+        intro={open ? REASON_DIALOG[open.move]?.intro ?? "" : ""}
+        submitLabel={open?.move === "HOLD" ? "Put on hold" : "Continue to signature"}
+        danger={open?.move !== "RESUME"}
         onClose={closeDialog}
         onSubmit={async (reason) => {
-          if (open?.move === "REJECT") return setOpen({ move: "REJECT", step: "sign", reason });
+          if (open && open.move !== "HOLD") return setOpen({ move: open.move, step: "sign", reason });
           await send({ move: "HOLD", reason });
           closeDialog();
         }}
