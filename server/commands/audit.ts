@@ -1,7 +1,5 @@
-import { sql } from "drizzle-orm";
 import { auditEvents } from "../db/schema.js";
 import type { DbOrTx } from "../db/client.js";
-import { notifyCall, type Change } from "../services/live.js";
 
 /** Who did something: a person, or Isobatch itself (seed, mail worker). */
 export interface Actor {
@@ -22,11 +20,10 @@ export interface AuditEntry {
 
 /**
  * Writes one audit row in the caller's transaction. Every mutation goes through here; the
- * database assigns the time, the sequence number and the chained hash. With `change`, the
- * same statement also announces it to the live feed (on commit).
+ * database assigns the time, the sequence number and the chained hash.
  */
-export async function recordAudit(tx: DbOrTx, actor: Actor, entry: AuditEntry, change?: Change): Promise<void> {
-  const insert = tx.insert(auditEvents).values({
+export async function recordAudit(tx: DbOrTx, actor: Actor, entry: AuditEntry): Promise<void> {
+  await tx.insert(auditEvents).values({
     actorId: actor.id,
     actorName: actor.name,
     action: entry.action,
@@ -36,10 +33,4 @@ export async function recordAudit(tx: DbOrTx, actor: Actor, entry: AuditEntry, c
     after: entry.after ?? null,
     reason: entry.reason ?? null,
   });
-  if (!change) {
-    await insert;
-    return;
-  }
-  // The chain's lock is held from this row to the commit; one round trip instead of two keeps that short.
-  await tx.execute(sql`with audited as ${insert.returning({ seq: auditEvents.seq })} select ${notifyCall(change)} from audited`);
 }
