@@ -27,6 +27,7 @@ import { batchRoutes } from "./routes/batches/batches.js";
 import { deviationRoutes } from "./routes/deviations/deviations.js";
 import { queueRoutes } from "./routes/queues/queues.js";
 import { liveRoutes } from "./routes/live/live.js";
+import { trainingRoutes } from "./routes/training/training.js";
 
 export interface BuiltApp {
   app: Express;
@@ -88,6 +89,7 @@ export function createApp(services: AppServices): BuiltApp {
     deviationRoutes(ctx, routes),
     queueRoutes(ctx, routes),
     liveRoutes(ctx, routes),
+    trainingRoutes(ctx, routes),
   ];
   for (const r of routers) {
     app.use(r.mountPath, r.router);

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { Db } from "../server/db/client.js";
 import { people } from "../server/db/schema.js";
+import { sql } from "drizzle-orm";
 import { hashPassword } from "../server/commands/passwords.js";
 import type { Role } from "../shared/schemas/roles.js";
 import { createVesselRegistrar } from "../server/commands/vesselRegistrar.js";
@@ -27,17 +28,47 @@ export interface BuiltPerson {
   password: string;
 }
 
-/** Inserts a person with their own unique email; override anything. */
-export async function buildPerson(db: Db, overrides: Partial<typeof people.$inferInsert> & { roles?: Role[]; password?: string } = {}): Promise<BuiltPerson> {
-  const { password = TEST_PASSWORD, ...rest } = overrides;
+// People made with { untrained: true } in this test file; the factories never train them.
+const untrainedIds = new Set<string>();
+// Fixture training: from a year ago to a year ahead (UTC days), recorded as a fixture, unsigned.
+const FIXTURE_NOTE = "test fixture";
+const fixtureDays = () => {
+  const day = (offsetDays: number) => new Date(Date.now() + offsetDays * 86_400_000).toISOString().slice(0, 10);
+  return { trainedOn: day(-365), validUntil: day(365) };
+};
+
+/**
+ * Inserts a person with their own unique email; override anything. The person is trained on
+ * every approved master-record version there is, unless `untrained` is set.
+ */
+export async function buildPerson(db: Db, overrides: Partial<typeof people.$inferInsert> & { roles?: Role[]; password?: string; untrained?: boolean } = {}): Promise<BuiltPerson> {
+  const { password = TEST_PASSWORD, untrained = false, ...rest } = overrides;
   const tag = randomUUID().slice(0, 8);
   const [row] = await db
     .insert(people)
     .values({ email: `person-${tag}@test.example`, name: `Test Person ${tag}`, roles: ["operator"], passwordHash: await hashPassword(password, cheap), ...rest })
     .returning();
+  if (untrained) untrainedIds.add(row.id);
+  else await trainOnEveryApprovedVersion(db, row.id);
   return { id: row.id, email: row.email, name: row.name, roles: row.roles as Role[], password };
 }
 
+/** Fixture training for one person on every approved master-record version (inserted directly). */
+async function trainOnEveryApprovedVersion(db: Db, personId: string) {
+  const { trainedOn, validUntil } = fixtureDays();
+  await db.execute(sql`
+    insert into training_records (person_id, master_record_version_id, trained_on, valid_until, note, recorded_by)
+    select ${personId}::uuid, id, ${trainedOn}::date, ${validUntil}::date, ${FIXTURE_NOTE}::text, ${personId}::uuid from master_record_versions where status = 'approved'`);
+}
+
+/** Fixture training for every active person (except the untrained ones) on one version. */
+async function trainEveryoneOn(db: Db, masterRecordVersionId: string, recordedBy: string) {
+  const { trainedOn, validUntil } = fixtureDays();
+  const skip = untrainedIds.size ? sql`and id not in (${sql.join([...untrainedIds].map((id) => sql`${id}::uuid`), sql`, `)})` : sql``;
+  await db.execute(sql`
+    insert into training_records (person_id, master_record_version_id, trained_on, valid_until, note, recorded_by)
+    select id, ${masterRecordVersionId}::uuid, ${trainedOn}::date, ${validUntil}::date, ${FIXTURE_NOTE}::text, ${recordedBy}::uuid from people where active ${skip}`);
+}
 
 const asSigner = (p: BuiltPerson): SignedInPerson => ({ id: p.id, email: p.email, name: p.name, roles: p.roles, mustChangePassword: false });
 const noMail = { enqueue: async () => undefined } as unknown as MailService;
@@ -59,13 +90,15 @@ export async function buildApprovedRateModel(db: Db, content: Partial<RateModelC
   return docs.approve(asSigner(quality), draft.id, quality.password);
 }
 
-/** An approved master-record version. */
+/** An approved master-record version, with every active person (but the untrained) trained on it. */
 export async function buildApprovedMasterRecord(db: Db) {
   const engineer = await buildPerson(db, { roles: ["engineer"] });
   const quality = await buildPerson(db, { roles: ["quality"] });
   const docs = createVersionedDocuments(db, checker(db), masterRecordKind);
   const draft = await docs.createFamily(asSigner(engineer), { code: `MR-${tag()}`, title: "Test master record", content: DEMO_MASTER_RECORD.content });
-  return docs.approve(asSigner(quality), draft.id, quality.password);
+  const approved = await docs.approve(asSigner(quality), draft.id, quality.password);
+  await trainEveryoneOn(db, approved.id, quality.id);
+  return approved;
 }
 
 /** A campaign on freshly approved versions. */

@@ -4,6 +4,7 @@ import { and, eq, inArray } from "drizzle-orm";
 import { loadBatchRecord, stepEntityId, stepSignedContent, STEP_ENTITY, type StepState } from "./batchRecord.js";
 import { recordAudit } from "./audit.js";
 import { confirmSigner, recordSignature } from "./signatureRecorder.js";
+import { requireTraining } from "./trainingRecorder.js";
 import type { CheckCredentials } from "./credentialChecker.js";
 import type { Notifier } from "./notifier.js";
 import { announce } from "../services/live.js";
@@ -39,6 +40,7 @@ export function createStepRecorder(deps: StepRecorderDeps) {
       const record = await loadBatchRecord(tx, batchId, { forUpdate: true });
       const s = findStep(record.steps, stepKey);
       if (!PERFORMERS[s.phase].some((r) => person.roles.includes(r))) throw new HttpError(403, "forbidden", `Steps of the ${s.phase} phase are performed by ${PERFORMERS[s.phase].join(" or ")}.`);
+      await requireTraining(tx, person.id, record.batch.masterRecordVersionId);
       const state = record.batch.state;
       if (kind === "perform") {
         if (state !== PHASE_STATE[s.phase]) throw conflict("wrong-phase", `"${s.step.title}" belongs to the ${s.phase} phase; the batch is ${state}.`);
@@ -81,6 +83,7 @@ export function createStepRecorder(deps: StepRecorderDeps) {
       return deps.db.transaction(async (tx) => {
         const record = await loadBatchRecord(tx, batchId, { forUpdate: true });
         const s = findStep(record.steps, stepKey);
+        await requireTraining(tx, person.id, record.batch.masterRecordVersionId);
         if (!s.step.critical) throw conflict("not-critical", `"${s.step.title}" is not a critical step; it needs no verification.`);
         if (!s.current || s.status === "not-started") throw conflict("nothing-to-verify", `"${s.step.title}" has not been performed yet.`);
         if (s.status === "complete") throw conflict("already-verified", `"${s.step.title}" is already verified.`);

@@ -110,3 +110,15 @@ export const DEMO_PROGRESS: Record<string, { to: "released" | "running" | "revie
   "HF-24-P2": { to: "review", runHotK: 6, deviation: { title: "Jacket temperature overshoot", description: "The jacket controller overshot to about 256 °C during the first half of the run.", severity: "major" } },
   "HF-24-P3": { to: "held", holdReason: "Piston seal weeping; waiting for maintenance", deviation: { title: "Piston seal weep", description: "A slight weep at the piston seal was seen after pressurising.", severity: "minor" } },
 };
+
+/**
+ * The demo's training on master record HF-DMX version 1, in days relative to the seeding day
+ * (UTC): everyone who executes the demo batches is current; the second operator's training
+ * lapsed a month ago, so the block can be seen on any batch page.
+ */
+export const DEMO_TRAINING: { email: string; trainedDaysAgo: number; validForDays: number; note: string }[] = [
+  { email: "operator@harrowfen.example", trainedDaysAgo: 60, validForDays: 365, note: "HF-DMX walk-through on the 40 L pilot vessel (demo)." },
+  { email: "supervisor@harrowfen.example", trainedDaysAgo: 60, validForDays: 365, note: "HF-DMX walk-through and verification duties (demo)." },
+  { email: "quality@harrowfen.example", trainedDaysAgo: 45, validForDays: 365, note: "HF-DMX release checklist (demo)." },
+  { email: "operator2@harrowfen.example", trainedDaysAgo: 395, validForDays: 364, note: "HF-DMX walk-through on the bench cell (demo); not renewed." },
+];

@@ -5,3 +5,4 @@ export * from "./tables/masterData.js";
 export * from "./tables/campaigns.js";
 export * from "./tables/execution.js";
 export * from "./tables/review.js";
+export * from "./tables/training.js";

@@ -15,6 +15,8 @@ export const DEMO_PEOPLE: { email: string; name: string; roles: Role[] }[] = [
   { email: "quality@harrowfen.example", name: "Helen Ashby", roles: ["quality"] },
   { email: "engineer@harrowfen.example", name: "Tomás Reyes", roles: ["engineer"] },
   { email: "admin@harrowfen.example", name: "Sam Whitlock", roles: ["admin"] },
+  // Trained on HF-DMX once, but the training has lapsed: the batch page shows why steps are blocked.
+  { email: "operator2@harrowfen.example", name: "Ines Cartwright", roles: ["operator"] },
 ];
 
 /** Seeds the demo; running it again adds only what is missing and changes nothing that exists. */

@@ -17,6 +17,7 @@ import { proposeModelUpdate } from "../commands/modelProposer.js";
 import { toSignedInPerson } from "../http/session.js";
 import { DEMO_PASSWORD } from "./seed.js";
 import { DEMO_PROGRESS } from "./demoScenario.js";
+import { seedDemoTraining } from "./seedDemoTraining.js";
 import { predictVolume } from "../../shared/kinetics/prediction.js";
 import { checkConditionsFor, modelKAt } from "../../shared/execution/modelAtBatch.js";
 import type { RateModelContent } from "../../shared/schemas/rateModels.js";
@@ -51,7 +52,8 @@ function demoTraceCsv(b: typeof batches.$inferSelect, model: { content: RateMode
  * Takes the demo campaign's batches to the states the demo shows, through the same commands and
  * signatures people use (each demo account signs with the demo password): three released bench
  * batches and a model update fitted from them, a pilot batch running with half its trace, the hot
- * pilot batch in review failing the kinetics gate, a pilot batch on hold. Skips batches already moved.
+ * pilot batch in review failing the kinetics gate, a pilot batch on hold. Their training is recorded
+ * first. Skips batches already moved.
  */
 export async function seedDemoBatches(db: Db, deps: { storage: StorageService; check: CheckCredentials; notify: Notifier; uploadMaxBytes: number }) {
   const rows = await db.select().from(people).where(inArray(people.email, ["operator@harrowfen.example", "supervisor@harrowfen.example", "quality@harrowfen.example", "engineer@harrowfen.example"]));
@@ -61,6 +63,8 @@ export async function seedDemoBatches(db: Db, deps: { storage: StorageService; c
   };
   const [op, sup, qa, eng] = [who("operator"), who("supervisor"), who("quality"), who("engineer")];
   if (!op || !sup || !qa || !eng) return;
+  // Nobody performs or verifies a step without current training on the master record.
+  await seedDemoTraining(db, { check: deps.check, notify: deps.notify });
   const base = { db, check: deps.check, notify: deps.notify };
   const reviewer = createBatchReviewer({ ...base, storage: deps.storage });
   const applyMove = createBatchTransitioner({ ...base, gate: reviewer.gate, afterMove: reviewer.afterMove });

@@ -14,7 +14,7 @@ export const SignatureSchema = z.object({
 export type SignatureInput = z.infer<typeof SignatureSchema>;
 
 /** Meanings a signature can carry; later steps add their own. */
-export const SIGNATURE_MEANINGS = ["performed", "verified", "reviewed", "approved", "released", "rejected", "resumed", "closed", "investigated"] as const;
+export const SIGNATURE_MEANINGS = ["performed", "verified", "reviewed", "approved", "released", "rejected", "resumed", "closed", "investigated", "training-recorded", "training-withdrawn"] as const;
 export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
 
 /** A signature as every screen shows it. */

@@ -110,11 +110,11 @@ async function checkScreens(role: Role, paths: string[]): Promise<string[]> {
 }
 
 const SCREENS: Record<Role, () => string[]> = {
-  operator: () => ["/operator", "/batches", `/batches/${runningBatchId}`],
-  supervisor: () => ["/supervisor", `/batches/${runningBatchId}`, "/deviations"],
-  quality: () => ["/quality", "/deviations", `/batches/${reviewBatchId}/review`, "/rate-models", "/master-records"],
+  operator: () => ["/operator", "/batches", `/batches/${runningBatchId}`, "/training"],
+  supervisor: () => ["/supervisor", `/batches/${runningBatchId}`, "/deviations", "/training"],
+  quality: () => ["/quality", "/deviations", `/batches/${reviewBatchId}/review`, "/rate-models", "/master-records", "/training"],
   engineer: () => ["/engineer", "/vessels", "/rate-models", "/master-records", "/campaigns", `/campaigns/${campaignId}`, `/campaigns/${campaignId}/trends`, "/analysis"],
-  admin: () => ["/admin", "/admin/people", "/admin/mail"],
+  admin: () => ["/admin", "/admin/people", "/admin/mail", "/training"],
 };
 
 describe("accessibility of the main screens (axe-core, no serious or critical violations)", () => {
@@ -137,6 +137,25 @@ describe("accessibility of the main screens (axe-core, no serious or critical vi
     await waitForScreen(page);
     const found = await blockingViolations(page, "engineer /analysis (checked)");
     await page.close();
+    expect(found).toEqual([]);
+  }, 120_000);
+
+  it("training: the record form open, and an untrained operator's batch page with the steps blocked", async () => {
+    const page = await signIn(people.supervisor);
+    await page.goto(base + "/training");
+    await waitForScreen(page);
+    await page.getByRole("button", { name: "Record training" }).click();
+    await page.getByRole("dialog").getByLabel("Valid until").waitFor();
+    const found = await blockingViolations(page, "supervisor /training (record form)");
+    await page.close();
+
+    const untrained = await buildPerson(t.database.db, { roles: ["operator"], name: "Axe untrained operator", untrained: true });
+    const floor = await signIn(untrained);
+    await floor.goto(base + `/batches/${runningBatchId}`);
+    await waitForScreen(floor);
+    await floor.getByText(/You have no training record for master record/).first().waitFor();
+    found.push(...(await blockingViolations(floor, "untrained operator batch page")));
+    await floor.close();
     expect(found).toEqual([]);
   }, 120_000);
 

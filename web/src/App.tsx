@@ -47,6 +47,8 @@ const routes: RouteObject[] = [
       { path: "batches/:id", lazy: screen(() => import("./routes/BatchPage")) },
       { path: "batches/:id/review", lazy: screen(() => import("./routes/BatchReview")) },
       { path: "deviations", lazy: screen(() => import("./routes/Deviations")) },
+      // Training: everyone sees their own; admins and supervisors record, quality reads all.
+      { path: "training", lazy: screen(() => import("./routes/Training")) },
       roleArea("operator", [{ path: "operator", lazy: screen(() => import("./routes/OperatorHome")) }]),
       roleArea("supervisor", [{ path: "supervisor", lazy: screen(() => import("./routes/SupervisorHome")) }]),
       roleArea("quality", [{ path: "quality", lazy: screen(() => import("./routes/QualityHome")) }]),

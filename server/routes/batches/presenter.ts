@@ -8,6 +8,14 @@ import { modelKAt } from "../../../shared/execution/modelAtBatch.js";
 import { decideMove, movesFrom } from "../../../shared/machines/batchLifecycle.js";
 import { MOVE_LABELS, type BatchFacts, type BatchState, type HoldableState } from "../../../shared/machines/batchMoves.js";
 import type { SignedInPerson } from "../../policies/access.js";
+import { trainingProblem } from "../../commands/trainingRecorder.js";
+import type { BatchTrainingView } from "../../../shared/schemas/training.js";
+
+/** Whether the viewer's training lets them perform or verify this batch's steps, and if not, why. */
+async function viewerTraining(db: DbOrTx, viewer: SignedInPerson, masterRecordVersionId: string): Promise<BatchTrainingView> {
+  const problem = await trainingProblem(db, viewer.id, masterRecordVersionId);
+  return problem ? { current: false, code: problem.code, message: problem.message } : { current: true };
+}
 
 /** The batch page's data: the pinned definitions, everything recorded, and what this person may do next. */
 export async function presentBatch(db: DbOrTx, record: BatchRecord, viewer: SignedInPerson, gate?: Pick<BatchFacts, "kinetics" | "unreviewedExceptions">) {
@@ -21,6 +29,7 @@ export async function presentBatch(db: DbOrTx, record: BatchRecord, viewer: Sign
   const who = (id: string | null) => (id ? { id, name: names.get(id) ?? "unknown" } : null);
   const { batch, vessel, campaign, masterRecord, model } = record;
   const facts = factsFor(record, viewer, gate?.kinetics, gate?.unreviewedExceptions);
+  const training = await viewerTraining(db, viewer, batch.masterRecordVersionId);
   const moves = movesFrom(batch.state as BatchState).map((move) => {
     const d = decideMove(batch.state as BatchState, (batch.heldFrom as HoldableState | null) ?? null, move, facts);
     return { move, label: MOVE_LABELS[move], allowed: d.allowed, refusals: d.allowed ? [] : d.refusals };
@@ -50,5 +59,6 @@ export async function presentBatch(db: DbOrTx, record: BatchRecord, viewer: Sign
     samples: record.samples.map((s) => ({ id: s.id, sampledAt: s.sampledAt.toISOString(), volumeL: s.volumeL, labResult: s.labResult, fileId: s.fileId, takenBy: who(s.takenBy) })),
     facts,
     moves,
+    training,
   };
 }

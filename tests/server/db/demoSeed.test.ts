@@ -6,7 +6,8 @@ import { seedDemoMasterData } from "../../../server/db/seedMasterData.js";
 import { seedDemoBatches } from "../../../server/db/seedDemoBatches.js";
 import { createCredentialChecker } from "../../../server/commands/credentialChecker.js";
 import { createNotifier } from "../../../server/commands/notifier.js";
-import { auditEvents, batches, campaigns, rateModelVersions } from "../../../server/db/schema.js";
+import { auditEvents, batches, campaigns, people, rateModelVersions } from "../../../server/db/schema.js";
+import { trainingProblem } from "../../../server/commands/trainingRecorder.js";
 
 let t: TestApp;
 beforeAll(async () => {
@@ -39,6 +40,12 @@ describe("the demo", () => {
       "HF-24-F2": "planned",
       "HF-24-F3": "planned",
     });
+    // The people who executed the batches are trained on the campaign's master record; the second operator's training lapsed.
+    const demoPerson = async (email: string) => (await db.select().from(people).where(eq(people.email, email)))[0];
+    for (const email of ["operator@harrowfen.example", "supervisor@harrowfen.example", "quality@harrowfen.example"]) {
+      expect(await trainingProblem(db, (await demoPerson(email)).id, campaign.masterRecordVersionId), email).toBeNull();
+    }
+    expect(await trainingProblem(db, (await demoPerson("operator2@harrowfen.example")).id, campaign.masterRecordVersionId)).toMatchObject({ code: "training-expired" });
     const versions = await db.select({ version: rateModelVersions.version, status: rateModelVersions.status, basedOn: rateModelVersions.basedOnBatchIds }).from(rateModelVersions).where(eq(rateModelVersions.modelId, (await db.select().from(rateModelVersions).where(eq(rateModelVersions.id, campaign.rateModelVersionId)))[0].modelId));
     expect(versions.find((v) => v.version === 2)).toMatchObject({ status: "draft" });
     expect(versions.find((v) => v.version === 2)!.basedOn).toHaveLength(3);

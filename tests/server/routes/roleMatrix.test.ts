@@ -41,6 +41,13 @@ describe("role matrix", () => {
     expect(routes.length).toBe(t.routes.length);
   });
 
+  it("declares the training routes: read by everyone signed in, recorded and withdrawn by admins and supervisors", () => {
+    const access = (method: string, path: string) => t.routes.find((r) => r.method === method && r.path === path)?.access;
+    expect(access("get", "/api/training")).toEqual({ kind: "signed-in" });
+    expect(access("post", "/api/training")).toEqual({ kind: "roles", roles: ["admin", "supervisor"] });
+    expect(access("post", "/api/training/:id/withdraw")).toEqual({ kind: "roles", roles: ["admin", "supervisor"] });
+  });
+
   it("answers each role on each route as its policy says: 403 when not allowed, never 401/403 when allowed", async () => {
     const wrong: string[] = [];
     for (const route of t.routes.filter((r) => !isSignOut(r))) {

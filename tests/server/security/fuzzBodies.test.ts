@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { count } from "drizzle-orm";
+import { and, count, eq } from "drizzle-orm";
 import { startTestApp, Client, type TestApp } from "../../support/testApp.js";
 import { buildPerson, buildPlannedBatch } from "../../factories.js";
-import { auditEvents } from "../../../server/db/schema.js";
+import { auditEvents, trainingRecords } from "../../../server/db/schema.js";
 
 let t: TestApp;
 let c: Client;
@@ -15,7 +15,9 @@ beforeAll(async () => {
   c = new Client(t.app);
   await c.signIn(p.email, p.password);
   const { batch, campaign, vessel, rateModel, masterRecord } = await buildPlannedBatch(t.database.db);
-  ids = { batch: batch.id, campaign: campaign.id, vessel: vessel.id, rateModel: rateModel.id, masterRecord: masterRecord.id };
+  // The factories trained everyone active on the new master record, this person included.
+  const [training] = await t.database.db.select({ id: trainingRecords.id }).from(trainingRecords).where(and(eq(trainingRecords.personId, p.id), eq(trainingRecords.masterRecordVersionId, masterRecord.id)));
+  ids = { batch: batch.id, campaign: campaign.id, vessel: vessel.id, rateModel: rateModel.id, masterRecord: masterRecord.id, training: training.id };
 });
 afterAll(() => t.close());
 
@@ -27,6 +29,7 @@ function concrete(path: string) {
     .replace("/api/vessels/:id", `/api/vessels/${ids.vessel}`)
     .replace("/api/rate-models/versions/:id", `/api/rate-models/versions/${ids.rateModel}`)
     .replace("/api/master-records/versions/:id", `/api/master-records/versions/${ids.masterRecord}`)
+    .replace("/api/training/:id", `/api/training/${ids.training}`)
     .replace(":stepKey", "reliefCheck")
     .replace(":key", "out-of-limit%3Ax")
     .replace(/:[a-zA-Z]+/g, "00000000-0000-4000-8000-000000000000");

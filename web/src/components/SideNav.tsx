@@ -15,6 +15,7 @@ const MASTER_DATA_PAGES: { to: string; label: string; roles: Role[] }[] = [
   { to: "/master-records", label: "Master records", roles: ["engineer", "quality", "supervisor"] },
   { to: "/campaigns", label: "Campaigns", roles: ["engineer", "quality", "supervisor"] },
   { to: "/analysis", label: "Kinetics analysis", roles: ["operator", "supervisor", "quality", "engineer", "admin"] },
+  { to: "/training", label: "Training", roles: ["operator", "supervisor", "quality", "engineer", "admin"] },
 ];
 
 function linkClass({ isActive }: { isActive: boolean }): string {

@@ -9,6 +9,7 @@ import { FieldSummary } from "./FieldSummary";
 import { useVerifyStepMutation } from "./mutations";
 import { PHASE_STATE, stepAbilities } from "./stepAbilities";
 import { StepStatusBadge } from "./StepStatusBadge";
+import { TrainingBlock } from "./TrainingBlock";
 import { STATE_WORDS } from "./batchStates";
 import type { BatchStepView, BatchView } from "./types";
 
@@ -40,6 +41,8 @@ export function StepCard({ view, step, caution }: StepCardProps) {
   const [verifying, setVerifying] = useState(false);
   const [message, setMessage] = useState<Message | null>(null);
   const headingId = `step-${step.key}-title`;
+  const blockId = `step-${step.key}-training`;
+  const blocked = able.trainingBlock !== null;
   const done = (text: string) => {
     setCorrecting(false);
     setMessage({ tone: "success", text });
@@ -60,7 +63,17 @@ export function StepCard({ view, step, caution }: StepCardProps) {
       <div aria-live="polite" className="empty:hidden">
         {message && <Notice tone={message.tone}>{message.text}</Notice>}
       </div>
-      {able.perform ? (
+      {able.trainingBlock && <TrainingBlock id={blockId} message={able.trainingBlock} />}
+      {able.perform && blocked ? (
+        <>
+          <FieldSummary step={step} v0L={view.batch.v0L} />
+          <div className="border-t border-ink-200 pt-3">
+            <Button className="min-h-14 px-6 text-lg" disabled aria-describedby={blockId}>
+              Sign as performed
+            </Button>
+          </div>
+        </>
+      ) : able.perform ? (
         <>
           {caution}
           <EntryForm view={view} step={step} mode="perform" onDone={done} />
@@ -89,12 +102,12 @@ export function StepCard({ view, step, caution }: StepCardProps) {
       {(able.verify || (able.correct && !correcting)) && (
         <div className="flex flex-wrap gap-3 border-t border-ink-200 pt-3">
           {able.verify && (
-            <Button className="min-h-14 px-6 text-lg" onClick={() => (setMessage(null), setVerifying(true))}>
+            <Button className="min-h-14 px-6 text-lg" disabled={blocked} aria-describedby={blocked ? blockId : undefined} onClick={() => (setMessage(null), setVerifying(true))}>
               Verify as second person
             </Button>
           )}
           {able.correct && !correcting && (
-            <Button variant="secondary" onClick={() => (setMessage(null), setCorrecting(true))}>
+            <Button variant="secondary" disabled={blocked} aria-describedby={blocked ? blockId : undefined} onClick={() => (setMessage(null), setCorrecting(true))}>
               Correct this entry
             </Button>
           )}

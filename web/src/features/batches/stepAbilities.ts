@@ -16,6 +16,11 @@ export interface StepAbilities {
   ownEntry: boolean;
   /** Who performs the step, in words, for those who may not. */
   performedBy: string;
+  /**
+   * Why the viewer's perform, correct and verify controls are disabled: the sentence about their
+   * training, when their role and the batch state would allow one of them; null otherwise.
+   */
+  trainingBlock: string | null;
 }
 
 /** What the viewer may do with a step now, by the same rules the server applies. */
@@ -27,11 +32,16 @@ export function stepAbilities(view: BatchView, step: BatchStepView): StepAbiliti
   const open = OPEN_ORDER.includes(state);
   const reached = open && OPEN_ORDER.indexOf(state) >= OPEN_ORDER.indexOf(PHASE_STATE[step.phase]);
   const ownEntry = Boolean(current && current.enteredBy?.id === personId);
+  const perform = performer && !current && state === PHASE_STATE[step.phase];
+  const correct = performer && Boolean(current) && reached;
+  const verify = step.critical && step.status === "awaiting-verification" && roles.includes("supervisor") && !ownEntry && open;
+  const untrained = !view.training.current && (perform || correct || verify);
   return {
-    perform: performer && !current && state === PHASE_STATE[step.phase],
-    correct: performer && Boolean(current) && reached,
-    verify: step.critical && step.status === "awaiting-verification" && roles.includes("supervisor") && !ownEntry && open,
+    perform,
+    correct,
+    verify,
     ownEntry,
     performedBy: PERFORMERS[step.phase].join(" or "),
+    trainingBlock: untrained ? (view.training.message ?? "Your training on this master record version is not current.") : null,
   };
 }

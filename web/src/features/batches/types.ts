@@ -3,6 +3,7 @@ import type { SignatureView } from "../../../../shared/schemas/common";
 import type { FieldDefinition, Phase } from "../../../../shared/schemas/masterRecords";
 import type { RateModelContent } from "../../../../shared/schemas/rateModels";
 import type { BatchFacts, BatchMove, BatchState, HoldableState, Refusal } from "../../../../shared/machines/batchMoves";
+import type { BatchTrainingView } from "../../../../shared/schemas/training";
 
 /** A person as the batch view names them. */
 export interface PersonRef {
@@ -134,6 +135,8 @@ export interface BatchView {
   samples: SampleView[];
   facts: BatchFacts;
   moves: MoveView[];
+  /** Whether the viewer's training on this master-record version is current, and if not, why. */
+  training: BatchTrainingView;
 }
 
 /** A row of GET /api/batches. */

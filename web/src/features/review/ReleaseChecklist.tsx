@@ -2,7 +2,9 @@ import { useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
 import { Notice } from "../../components/Notice";
 import { SignatureList } from "../../components/SignatureList";
+import { Button } from "../../components/Button";
 import { EntryForm } from "../batches/EntryForm";
+import { TrainingBlock } from "../batches/TrainingBlock";
 import { recordedValueText } from "../batches/fieldText";
 import type { BatchStepView, BatchView } from "../batches/types";
 import { reviewKey } from "./queries";
@@ -22,8 +24,18 @@ export function ReleaseChecklist({ view, canPerform }: { view: BatchView; canPer
         <div key={step.key} className="flex flex-col gap-3 rounded-lg border-2 border-ink-200 bg-white p-4">
           <h3 className="text-xl font-bold">{step.title}</h3>
           <p className="text-ink-800">{step.instructions}</p>
+          {step.status === "not-started" && canPerform && !view.training.current && (
+            <>
+              <TrainingBlock id={`release-${step.key}-training`} message={view.training.message ?? "Your training on this master record version is not current."} />
+              <div>
+                <Button className="min-h-14 px-6 text-lg" disabled aria-describedby={`release-${step.key}-training`}>
+                  Sign as performed
+                </Button>
+              </div>
+            </>
+          )}
           {step.status === "not-started" &&
-            (canPerform ? (
+            (canPerform && view.training.current ? (
               <EntryForm
                 view={view}
                 step={step}
@@ -33,7 +45,7 @@ export function ReleaseChecklist({ view, canPerform }: { view: BatchView; canPer
                   void queryClient.invalidateQueries({ queryKey: reviewKey(view.batch.id) });
                 }}
               />
-            ) : (
+            ) : canPerform ? null : (
               <p className="font-semibold">Not performed yet. Quality performs it while the batch is in review.</p>
             ))}
           {step.status !== "not-started" && <RecordedStep step={step} />}

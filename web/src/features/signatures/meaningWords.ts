@@ -11,4 +11,6 @@ export const MEANING_WORDS: Record<SignatureMeaning, string> = {
   resumed: "Resumed",
   closed: "Closed",
   investigated: "Investigated",
+  "training-recorded": "Training recorded",
+  "training-withdrawn": "Training withdrawn",
 };
