@@ -84,4 +84,13 @@ describe("a change to a record needs a reason", () => {
     await expectReasonRequired({ who: "admin", method: "post", path: `/api/people/${locked.id}/unlock`, body: {} });
     await expectReasonRequired({ who: "admin", method: "post", path: `/api/people/${person.id}/reset-password`, body: { temporaryPassword: "Harrow-Fen-temporary-42" } });
   });
+
+  it("training: withdrawing a training record", async () => {
+    const record = await buildApprovedMasterRecord(t.database.db);
+    const trainee = await buildPerson(t.database.db, { roles: ["operator"], untrained: true });
+    const today = new Date().toISOString().slice(0, 10);
+    const training = await d.clients.sup.post("/api/training", { personId: trainee.id, masterRecordVersionId: record.id, trainedOn: today, validUntil: today, password: d.people.sup.password });
+    expect(training.status).toBe(201);
+    await expectReasonRequired({ who: "sup", method: "post", path: `/api/training/${training.body.record.id}/withdraw`, body: { password: d.people.sup.password } });
+  });
 });
