@@ -1,5 +1,4 @@
-import { eq, sql } from "drizzle-orm";
-import { randomUUID } from "node:crypto";
+import { eq } from "drizzle-orm";
 import type { Db } from "../db/client.js";
 import { batchAttachments, batchSamples, batchTraces, batches, files } from "../db/schema.js";
 import type { StorageService } from "../services/storage.js";
@@ -9,7 +8,8 @@ import { raiseDeviation } from "./deviationRecorder.js";
 import type { Notifier } from "./notifier.js";
 import { combinedTrace } from "./batchTrace.js";
 import { runKineticsCheck } from "./kineticsGate.js";
-import { announce, notifyCall } from "../services/live.js";
+import { announce } from "../services/live.js";
+import { writeSample } from "./sampleWriter.js";
 import { conflict, HttpError } from "../http/errors.js";
 import { createTraceCsvParser, type ParsedTrace } from "../../shared/kinetics/traceCsvParser.js";
 import { checkTrace } from "../../shared/kinetics/checkTrace.js";
@@ -108,28 +108,7 @@ export function createBatchFiles(deps: { db: Db; storage: StorageService; notify
     async recordSample(person: SignedInPerson, batchId: string, input: { sampledAt: string; volume: { value: number; unit: "mL" | "L" | "m³" }; labResult?: string; fileId?: string }) {
       // Files are never deleted, so one found now is there when the sample is written.
       if (input.fileId) await fileOf(deps.db, input.fileId);
-      const sample = { id: randomUUID(), batchId, sampledAt: new Date(input.sampledAt), volumeL: toSI(input.volume.value, input.volume.unit), labResult: input.labResult ?? null, fileId: input.fileId ?? null, takenBy: person.id };
-      const after = { sampleId: sample.id, sampledAt: sample.sampledAt.toISOString(), volumeL: sample.volumeL, labResult: sample.labResult, fileId: sample.fileId };
-      // Samples are the floor's most frequent write: one statement (its own transaction) locks the
-      // batch row, checks its state, writes the sample and its audit row, and announces the change.
-      const result = await deps.db.execute<{ state: string; recorded_at: Date | null }>(sql`
-        with target as (select id, state from batches where id = ${batchId} for update),
-        sample as (
-          insert into batch_samples (id, batch_id, sampled_at, volume_l, lab_result, file_id, taken_by)
-          select ${sample.id}::uuid, target.id, ${after.sampledAt}::timestamptz, ${sample.volumeL}::double precision, ${sample.labResult}::text, ${sample.fileId}::uuid, ${person.id}::uuid
-          from target where target.state in ('running', 'sampling')
-          returning id, recorded_at),
-        audited as (
-          insert into audit_events (actor_id, actor_name, action, entity_type, entity_id, after)
-          select ${person.id}::uuid, ${person.name}, 'sample-recorded', 'batch', ${batchId}, ${JSON.stringify(after)}::jsonb from sample
-          returning seq),
-        announced as (select ${notifyCall({ kind: "batch", id: batchId })} from audited)
-        select target.state, sample.recorded_at, (select count(*) from announced) as announced
-        from target left join sample on true`);
-      const [row] = result.rows;
-      if (!row) throw new HttpError(404, "not-found", "That batch was not found.");
-      if (!row.recorded_at) throw conflict("wrong-phase", `Samples are recorded while the batch is running or sampling; it is ${row.state}.`);
-      return { ...sample, recordedAt: new Date(row.recorded_at) };
+      return writeSample(deps.db.$client, person, batchId, { sampledAt: new Date(input.sampledAt), volumeL: toSI(input.volume.value, input.volume.unit), labResult: input.labResult ?? null, fileId: input.fileId ?? null });
     },
   };
 }

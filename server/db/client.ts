@@ -5,7 +5,7 @@ import { fileURLToPath } from "node:url";
 import * as schema from "./schema.js";
 import { releaseClientsOnFailedBegin } from "./releaseOnFailedBegin.js";
 
-export type Db = NodePgDatabase<typeof schema>;
+export type Db = NodePgDatabase<typeof schema> & { $client: pg.Pool };
 /** A transaction handle, as `db.transaction` passes it. */
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 /** Either the database or a transaction: helpers that must join the caller's transaction take this. */

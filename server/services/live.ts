@@ -1,22 +1,18 @@
 import type pg from "pg";
-import { sql, type SQL } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import type { DbOrTx } from "../db/client.js";
 
-const CHANNEL = "isobatch_changes";
+/** The PostgreSQL channel every change is announced on. */
+export const LIVE_CHANNEL = "isobatch_changes";
 
 export interface Change {
   kind: "batch" | "deviation" | "queue";
   id: string;
 }
 
-/** The NOTIFY call for a change, for statements that announce as they write (see `recordAudit`). */
-export function notifyCall(change: Change): SQL {
-  return sql`pg_notify(${CHANNEL}, ${JSON.stringify(change)})`;
-}
-
 /** Announces a change when the caller's transaction commits (PostgreSQL NOTIFY), to every app server. */
 export async function announce(tx: DbOrTx, change: Change): Promise<void> {
-  await tx.execute(sql`select ${notifyCall(change)}`);
+  await tx.execute(sql`select pg_notify(${LIVE_CHANNEL}, ${JSON.stringify(change)})`);
 }
 
 /**
@@ -48,7 +44,7 @@ export function createChangeFeed(pool: pg.Pool, log: { warn: (o: object, m: stri
         c.release(true);
         schedule();
       });
-      await c.query(`LISTEN ${CHANNEL}`);
+      await c.query(`LISTEN ${LIVE_CHANNEL}`);
     } catch (err) {
       client = undefined;
       log.warn({ err: (err as Error).message }, "live updates: cannot listen yet; retrying");
