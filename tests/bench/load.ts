@@ -119,6 +119,9 @@ async function main() {
   console.log(row("app POST …/samples", real));
   console.log(row("bare insert", floor));
   console.log(`throughput ratio app / bare: ${(ratio * 100).toFixed(1)} %`);
+  // Each connection sends its next request when the last is answered, so latency and throughput are tied.
+  const loopMs = (o: LoadOutcome) => ((OPERATORS / Math.max(o.ok2xx / o.durationS, 1e-9)) * 1000).toFixed(0);
+  console.log(`closed loop of ${OPERATORS} connections: mean latency ≈ connections / throughput = ${loopMs(real)} ms (app), ${loopMs(floor)} ms (bare)`);
   console.log(cpuLine("app", realCpu, real));
   console.log(cpuLine("bare", floorCpu, floor));
   console.log(`app status codes: ${JSON.stringify(real.statusCodes)}; timeouts ${real.timeouts}; ids read from 2xx answers ${real.acknowledged.length}`);
