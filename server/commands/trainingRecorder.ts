@@ -8,7 +8,7 @@ import type { Notifier } from "./notifier.js";
 import { trainingStatusOn, utcDay } from "./trainingStatus.js";
 import { conflict, HttpError, notFound } from "../http/errors.js";
 import type { SignedInPerson } from "../policies/access.js";
-import { presentTrainingRows } from "../routes/training/presenter.js";
+import { presentTrainingRows } from "./trainingViews.js";
 import type { TrainingProblemCode, TrainingRecordInput, TrainingRecordView, TrainingWithdrawInput } from "../../shared/schemas/training.js";
 
 export const TRAINING_ENTITY = "training-record";

@@ -1,8 +1,8 @@
 import { asc, eq, inArray } from "drizzle-orm";
-import type { DbOrTx } from "../../db/client.js";
-import { masterRecords, masterRecordVersions, people, trainingRecords } from "../../db/schema.js";
-import { trainingStatusOn, utcDay } from "../../commands/trainingStatus.js";
-import type { TrainingRecordView } from "../../../shared/schemas/training.js";
+import type { DbOrTx } from "../db/client.js";
+import { masterRecords, masterRecordVersions, people, trainingRecords } from "../db/schema.js";
+import { trainingStatusOn, utcDay } from "./trainingStatus.js";
+import type { TrainingRecordView } from "../../shared/schemas/training.js";
 
 type TrainingRow = typeof trainingRecords.$inferSelect;
 
