@@ -1,5 +1,6 @@
 import { Router, type RequestHandler } from "express";
 import { accessGuard, type Access } from "../policies/access.js";
+import { declaredEffect, type RecordEffect } from "./recordEffects.js";
 
 type Method = "get" | "post" | "put" | "patch" | "delete";
 
@@ -8,6 +9,8 @@ export interface RouteDeclaration {
   method: Method;
   path: string;
   access: Access;
+  /** For mutating routes: what the route does to the records (see recordEffects.ts). */
+  effect?: RecordEffect;
 }
 
 /**
@@ -19,7 +22,7 @@ export function policyRouter(mountPath: string, registry: RouteDeclaration[]) {
   const add =
     (method: Method) =>
     (path: string, access: Access, ...handlers: RequestHandler[]) => {
-      registry.push({ method, path: (mountPath + (path === "/" ? "" : path)) || "/", access });
+      registry.push({ method, path: (mountPath + (path === "/" ? "" : path)) || "/", access, effect: declaredEffect(handlers) });
       router[method](path, accessGuard(access), ...handlers);
     };
   return { mountPath, router, get: add("get"), post: add("post"), put: add("put"), patch: add("patch"), delete: add("delete") };

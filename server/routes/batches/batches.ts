@@ -20,6 +20,7 @@ import { checkConditionsFor, modelKAt } from "../../../shared/execution/modelAtB
 import { forecastTarget } from "../../../shared/execution/forecast.js";
 import { createBatchReviewer } from "../../commands/batchReviewer.js";
 import { reviewRoutes } from "./review.js";
+import { changesRecord, createsRecord, movesBatch, signsRecord } from "../../http/recordEffects.js";
 
 const ListQuery = z.object({ state: z.enum(BATCH_STATES).optional(), campaignId: z.uuid().optional() });
 const stepKey = (req: { params: Record<string, unknown> }) => String(req.params.stepKey).slice(0, 40);
@@ -55,40 +56,40 @@ export function batchRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
   r.get("/:id", signedIn, async (req, res) => {
     res.json(await view(idParam(req), me(req)));
   });
-  r.post("/:id/events", onBatch, validate(BatchEventSchema), async (req, res) => {
+  r.post("/:id/events", onBatch, movesBatch, validate(BatchEventSchema), async (req, res) => {
     const id = idParam(req);
     await applyMove(me(req), id, req.body);
     res.json(await view(id, me(req)));
   });
-  r.post("/:id/steps/:stepKey/entries", allow("operator", "supervisor", "quality"), validate(StepPerformSchema), async (req, res) => {
+  r.post("/:id/steps/:stepKey/entries", allow("operator", "supervisor", "quality"), createsRecord, validate(StepPerformSchema), async (req, res) => {
     const id = idParam(req);
     await steps.perform(me(req), id, stepKey(req), req.body);
     res.status(201).json(await view(id, me(req)));
   });
-  r.post("/:id/steps/:stepKey/corrections", allow("operator", "supervisor", "quality"), validate(StepCorrectSchema), async (req, res) => {
+  r.post("/:id/steps/:stepKey/corrections", allow("operator", "supervisor", "quality"), changesRecord, validate(StepCorrectSchema), async (req, res) => {
     const id = idParam(req);
     await steps.correct(me(req), id, stepKey(req), req.body);
     res.status(201).json(await view(id, me(req)));
   });
-  r.post("/:id/steps/:stepKey/verify", allow("supervisor"), validate(StepVerifySchema), async (req, res) => {
+  r.post("/:id/steps/:stepKey/verify", allow("supervisor"), signsRecord, validate(StepVerifySchema), async (req, res) => {
     const id = idParam(req);
     await steps.verify(me(req), id, stepKey(req), req.body.password, req.body.comment);
     res.json(await view(id, me(req)));
   });
-  r.post("/:id/deviations", onBatch, validate(DeviationRaiseSchema), async (req, res) => {
+  r.post("/:id/deviations", onBatch, createsRecord, validate(DeviationRaiseSchema), async (req, res) => {
     const id = idParam(req);
     const deviation = await deviationRecorder.raise(me(req), id, req.body);
     res.status(201).json({ deviation: { id: deviation.id, status: deviation.status, revision: deviation.revision } });
   });
-  r.post("/:id/attachments", onBatch, validate(AttachmentAddSchema), async (req, res) => {
+  r.post("/:id/attachments", onBatch, createsRecord, validate(AttachmentAddSchema), async (req, res) => {
     const id = idParam(req);
     const added = await filesOf.attach(me(req), id, req.body);
     res.status(201).json({ attachment: { id: added.id, fileId: added.fileId, sha256: added.file.sha256 } });
   });
-  r.post("/:id/traces", allow("operator", "supervisor", "engineer"), validate(TraceAddSchema), async (req, res) => {
+  r.post("/:id/traces", allow("operator", "supervisor", "engineer"), createsRecord, validate(TraceAddSchema), async (req, res) => {
     res.status(201).json({ trace: await filesOf.addTrace(me(req), idParam(req), req.body) });
   });
-  r.post("/:id/samples", allow("operator", "supervisor"), validate(SampleRecordSchema), async (req, res) => {
+  r.post("/:id/samples", allow("operator", "supervisor"), createsRecord, validate(SampleRecordSchema), async (req, res) => {
     const sample = await filesOf.recordSample(me(req), idParam(req), req.body);
     res.status(201).json({ sample: { id: sample.id, volumeL: sample.volumeL, sampledAt: sample.sampledAt.toISOString() } });
   });

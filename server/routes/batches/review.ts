@@ -11,6 +11,7 @@ import { batchRecordJson } from "../../commands/batchRecordJson.js";
 import { batchYield } from "../../commands/yieldCheck.js";
 import { kineticsChecks } from "../../db/schema.js";
 import { asc, eq } from "drizzle-orm";
+import { createsRecord, signsRecord } from "../../http/recordEffects.js";
 
 const presentCheck = (c: NonNullable<Awaited<ReturnType<BatchReviewer["review"]>>["check"]>) => ({
   id: c.id,
@@ -38,13 +39,13 @@ export function reviewRoutes(r: PolicyRouter, ctx: RouteContext, reviewer: Batch
     const { check, exceptions } = await reviewer.review(idParam(req));
     res.json({ check: check ? presentCheck(check) : null, exceptions });
   });
-  r.post("/:id/review/exceptions/:key", allow("quality"), validate(SignatureSchema), async (req, res) => {
+  r.post("/:id/review/exceptions/:key", allow("quality"), signsRecord, validate(SignatureSchema), async (req, res) => {
     const id = idParam(req);
     await reviewer.markReviewed(me(req), id, String(req.params.key).slice(0, 200), req.body.password, req.body.comment);
     const { check, exceptions } = await reviewer.review(id);
     res.json({ check: check ? presentCheck(check) : null, exceptions });
   });
-  r.post("/:id/kinetics-check", allow("quality", "engineer"), async (req, res) => {
+  r.post("/:id/kinetics-check", allow("quality", "engineer"), createsRecord, async (req, res) => {
     const id = idParam(req);
     const row = await reviewer.rerunCheck(me(req), id);
     res.status(201).json({ check: presentCheck(row), batch: await view(id, me(req)) });

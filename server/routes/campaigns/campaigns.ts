@@ -9,6 +9,7 @@ import { batches, campaigns, masterRecordVersions, masterRecords, rateModelVersi
 import { createBatchPlanner } from "../../commands/batchPlanner.js";
 import { campaignTrends } from "../../commands/campaignTrends.js";
 import { BatchPlanSchema, CampaignCreateSchema } from "../../../shared/schemas/campaigns.js";
+import { computesOnly, createsRecord } from "../../http/recordEffects.js";
 
 const planners = (p: SignedInPerson) => p.roles.includes("engineer") || p.roles.includes("supervisor");
 
@@ -41,7 +42,7 @@ export function campaignRoutes(ctx: RouteContext, registry: RouteDeclaration[]) 
   r.get("/", signedIn, async (req, res) => {
     res.json({ campaigns: await present(await ctx.db.select().from(campaigns).orderBy(desc(campaigns.createdAt)), me(req)) });
   });
-  r.post("/", allow("engineer"), validate(CampaignCreateSchema), async (req, res) => {
+  r.post("/", allow("engineer"), createsRecord, validate(CampaignCreateSchema), async (req, res) => {
     const row = await planner.createCampaign(me(req), req.body);
     res.status(201).json({ campaign: (await present([row], me(req)))[0] });
   });
@@ -50,11 +51,11 @@ export function campaignRoutes(ctx: RouteContext, registry: RouteDeclaration[]) 
     if (rows.length === 0) throw notFound("That campaign");
     res.json({ campaign: (await present(rows, me(req)))[0] });
   });
-  r.post("/:id/plan-preview", allow("engineer", "supervisor"), validate(BatchPlanSchema.omit({ code: true })), async (req, res) => {
+  r.post("/:id/plan-preview", allow("engineer", "supervisor"), computesOnly, validate(BatchPlanSchema.omit({ code: true })), async (req, res) => {
     const { plan } = await planner.preview(idParam(req), req.body);
     res.json({ plan });
   });
-  r.post("/:id/batches", allow("engineer", "supervisor"), validate(BatchPlanSchema), async (req, res) => {
+  r.post("/:id/batches", allow("engineer", "supervisor"), createsRecord, validate(BatchPlanSchema), async (req, res) => {
     const row = await planner.planBatch(me(req), idParam(req), req.body);
     res.status(201).json({ batch: { id: row.id, code: row.code, state: row.state, plan: row.plan } });
   });

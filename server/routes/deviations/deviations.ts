@@ -8,6 +8,7 @@ import { idParam } from "../../http/params.js";
 import { batches, deviations } from "../../db/schema.js";
 import { createDeviationRecorder } from "../../commands/deviationRecorder.js";
 import { DeviationCloseSchema, DeviationInvestigateSchema } from "../../../shared/schemas/batches.js";
+import { createsRecord, signsRecord } from "../../http/recordEffects.js";
 
 const ListQuery = z.object({ status: z.enum(["open", "investigated", "closed", "not-closed"]).default("not-closed") });
 
@@ -24,11 +25,11 @@ export function deviationRoutes(ctx: RouteContext, registry: RouteDeclaration[])
     const rows = await ctx.db.select({ d: deviations, code: batches.code }).from(deviations).innerJoin(batches, eq(batches.id, deviations.batchId)).where(inArray(deviations.status, [...statuses])).orderBy(desc(deviations.raisedAt));
     res.json({ deviations: rows.map(({ d, code }) => present(d, code)) });
   });
-  r.post("/:id/investigate", allow("supervisor"), validate(DeviationInvestigateSchema), async (req, res) => {
+  r.post("/:id/investigate", allow("supervisor"), createsRecord, validate(DeviationInvestigateSchema), async (req, res) => {
     const d = await recorder.investigate(me(req), idParam(req), req.body);
     res.json({ deviation: { id: d.id, status: d.status, revision: d.revision } });
   });
-  r.post("/:id/close", allow("quality"), validate(DeviationCloseSchema), async (req, res) => {
+  r.post("/:id/close", allow("quality"), signsRecord, validate(DeviationCloseSchema), async (req, res) => {
     const d = await recorder.close(me(req), idParam(req), req.body);
     res.json({ deviation: { id: d.id, status: d.status, revision: d.revision } });
   });

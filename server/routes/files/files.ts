@@ -10,6 +10,7 @@ import { HttpError, conflict, notFound } from "../../http/errors.js";
 import { idParam } from "../../http/params.js";
 import { files } from "../../db/schema.js";
 import { receiveFile, formatBytes, type ReceivedFile } from "../../commands/fileReceiver.js";
+import { createsRecord } from "../../http/recordEffects.js";
 
 /** Reads the single `file` part of a multipart request into receiveFile. */
 function receiveMultipart(ctx: RouteContext, req: Request): Promise<ReceivedFile> {
@@ -57,7 +58,7 @@ async function sha256Of(stream: Readable): Promise<string> {
 export function fileRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
   const r = policyRouter("/api/files", registry);
 
-  r.post("/", signedIn, async (req, res) => {
+  r.post("/", signedIn, createsRecord, async (req, res) => {
     res.status(201).json({ file: await receiveMultipart(ctx, req) });
   });
 

@@ -28,6 +28,7 @@ import {
 } from "../../../shared/schemas/kinetics.js";
 import { presentCheck, presentFit } from "./kineticsPresenter.js";
 import { readTraceUpload } from "./traceUpload.js";
+import { computesOnly } from "../../http/recordEffects.js";
 
 /** Runs a library computation; bad input it finds becomes 422 naming the field. */
 function compute<T>(work: () => T, fieldOf: (field: string) => string = (f) => f): T {
@@ -107,13 +108,13 @@ export function kineticsRoutes(ctx: RouteContext, registry: RouteDeclaration[]) 
   const upload = <P extends { csv?: { boreArea?: number; volumeAtZeroTravel?: number } }>(req: Request, schema: ZodType<P, unknown>) =>
     readTraceUpload<P>(req, { maxBytes: ctx.settings.uploadMaxBytes, readParams: paramsReader<P>(schema), csvOptionsOf: (p) => p.csv });
 
-  r.post("/epsilon", signedIn, validate(EpsilonRequestSchema), (req, res) => {
+  r.post("/epsilon", signedIn, computesOnly, validate(EpsilonRequestSchema), (req, res) => {
     const { reactants, products, keySpecies, feed } = req.body as EpsilonRequest;
     // The library names reaction.reactants[i]…; this body has reactants at the top level.
     res.json(compute(() => computeEpsilonA({ reactants, products }, keySpecies, feed), (f) => f.replace(/^reaction\./, "")));
   });
 
-  r.post("/fit", signedIn, jsonOrUpload(FitRequestSchema), async (req, res) => {
+  r.post("/fit", signedIn, computesOnly, jsonOrUpload(FitRequestSchema), async (req, res) => {
     if (isUpload(req)) {
       const { params, csv } = await upload<FitParams>(req, FitParamsSchema);
       res.json(runFit(traceOf(csv), params));
@@ -123,7 +124,7 @@ export function kineticsRoutes(ctx: RouteContext, registry: RouteDeclaration[]) 
     res.json(runFit(traceFromJson(trace), params));
   });
 
-  r.post("/check", signedIn, jsonOrUpload(CheckRequestSchema), async (req, res) => {
+  r.post("/check", signedIn, computesOnly, jsonOrUpload(CheckRequestSchema), async (req, res) => {
     if (isUpload(req)) {
       const { params, csv } = await upload<CheckParams>(req, CheckParamsSchema);
       res.json(runCheck(traceOf(csv), params));

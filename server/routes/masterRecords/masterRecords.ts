@@ -7,6 +7,7 @@ import { createVersionedDocuments, type VersionView } from "../../commands/versi
 import { masterRecordKind } from "../../commands/masterRecordKind.js";
 import { MasterRecordCreateSchema, MasterRecordDraftSchema, MasterRecordDraftUpdateSchema, type MasterRecordContent, type MasterRecordVersionView } from "../../../shared/schemas/masterRecords.js";
 import { SignatureSchema } from "../../../shared/schemas/common.js";
+import { changesRecord, createsRecord, signsRecord } from "../../http/recordEffects.js";
 
 /** The API's view of a master-record version. */
 export function presentMasterRecord(v: VersionView<MasterRecordContent>): MasterRecordVersionView {
@@ -23,22 +24,22 @@ export function masterRecordRoutes(ctx: RouteContext, registry: RouteDeclaration
   r.get("/", signedIn, async (req, res) => {
     res.json({ versions: (await docs.list(me(req))).map(presentMasterRecord) });
   });
-  r.post("/", allow("engineer"), validate(MasterRecordCreateSchema), async (req, res) => {
+  r.post("/", allow("engineer"), createsRecord, validate(MasterRecordCreateSchema), async (req, res) => {
     res.status(201).json({ version: presentMasterRecord(await docs.createFamily(me(req), req.body)) });
   });
   r.get("/:id/versions", signedIn, async (req, res) => {
     res.json({ versions: (await docs.versionsOf(idParam(req), me(req))).map(presentMasterRecord) });
   });
-  r.post("/:id/versions", allow("engineer"), validate(MasterRecordDraftSchema), async (req, res) => {
+  r.post("/:id/versions", allow("engineer"), createsRecord, validate(MasterRecordDraftSchema), async (req, res) => {
     res.status(201).json({ version: presentMasterRecord(await docs.createDraft(me(req), idParam(req), req.body.content)) });
   });
   r.get("/versions/:id", signedIn, async (req, res) => {
     res.json({ version: presentMasterRecord(await docs.get(idParam(req), me(req))) });
   });
-  r.put("/versions/:id", allow("engineer"), validate(MasterRecordDraftUpdateSchema), async (req, res) => {
+  r.put("/versions/:id", allow("engineer"), changesRecord, validate(MasterRecordDraftUpdateSchema), async (req, res) => {
     res.json({ version: presentMasterRecord(await docs.updateDraft(me(req), idParam(req), req.body.content, req.body.reason, req.body.revision)) });
   });
-  r.post("/versions/:id/approve", allow("quality"), validate(SignatureSchema), async (req, res) => {
+  r.post("/versions/:id/approve", allow("quality"), signsRecord, validate(SignatureSchema), async (req, res) => {
     res.json({ version: presentMasterRecord(await docs.approve(me(req), idParam(req), req.body.password, req.body.comment)) });
   });
   return r;

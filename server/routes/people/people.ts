@@ -8,6 +8,7 @@ import { presentPerson } from "./presenter.js";
 import { createPersonAdministrator } from "../../commands/personAdministrator.js";
 import { PasswordResetSchema, PersonCreateSchema, PersonRolesSchema, ReasonOnlySchema } from "../../../shared/schemas/people.js";
 import { idParam } from "../../http/params.js";
+import { changesRecord, createsRecord } from "../../http/recordEffects.js";
 
 /** /api/people: accounts and roles, for admins. People are never deleted. */
 export function peopleRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
@@ -19,22 +20,22 @@ export function peopleRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
     const rows = await ctx.db.select().from(people).orderBy(asc(people.name));
     res.json({ people: rows.map(presentPerson) });
   });
-  r.post("/", allow("admin"), validate(PersonCreateSchema), async (req, res) => {
+  r.post("/", allow("admin"), createsRecord, validate(PersonCreateSchema), async (req, res) => {
     res.status(201).json({ person: await admin.create(me(req), req.body) });
   });
-  r.put("/:id/roles", allow("admin"), validate(PersonRolesSchema), async (req, res) => {
+  r.put("/:id/roles", allow("admin"), changesRecord, validate(PersonRolesSchema), async (req, res) => {
     res.json({ person: await admin.setRoles(me(req), idParam(req), req.body.roles, req.body.reason) });
   });
-  r.post("/:id/deactivate", allow("admin"), validate(ReasonOnlySchema), async (req, res) => {
+  r.post("/:id/deactivate", allow("admin"), changesRecord, validate(ReasonOnlySchema), async (req, res) => {
     res.json({ person: await admin.deactivate(me(req), idParam(req), req.body.reason) });
   });
-  r.post("/:id/reactivate", allow("admin"), validate(ReasonOnlySchema), async (req, res) => {
+  r.post("/:id/reactivate", allow("admin"), changesRecord, validate(ReasonOnlySchema), async (req, res) => {
     res.json({ person: await admin.reactivate(me(req), idParam(req), req.body.reason) });
   });
-  r.post("/:id/unlock", allow("admin"), validate(ReasonOnlySchema), async (req, res) => {
+  r.post("/:id/unlock", allow("admin"), changesRecord, validate(ReasonOnlySchema), async (req, res) => {
     res.json({ person: await admin.unlock(me(req), idParam(req), req.body.reason) });
   });
-  r.post("/:id/reset-password", allow("admin"), validate(PasswordResetSchema), async (req, res) => {
+  r.post("/:id/reset-password", allow("admin"), changesRecord, validate(PasswordResetSchema), async (req, res) => {
     res.json({ person: await admin.resetPassword(me(req), idParam(req), req.body.temporaryPassword, req.body.reason) });
   });
   return r;

@@ -9,6 +9,7 @@ import { RateModelCreateSchema, RateModelDraftSchema, RateModelDraftUpdateSchema
 import { SignatureSchema } from "../../../shared/schemas/common.js";
 import { ModelProposalSchema } from "../../../shared/schemas/rateModels.js";
 import { proposeModelUpdate } from "../../commands/modelProposer.js";
+import { changesRecord, createsRecord, signsRecord } from "../../http/recordEffects.js";
 
 /** The API's view of a rate-model version. */
 export function presentRateModel(v: VersionView<RateModelContent>): RateModelVersionView {
@@ -30,25 +31,25 @@ export function rateModelRoutes(ctx: RouteContext, registry: RouteDeclaration[])
   r.get("/", signedIn, async (req, res) => {
     res.json({ versions: (await docs.list(me(req))).map(presentRateModel) });
   });
-  r.post("/", allow("engineer"), validate(RateModelCreateSchema), async (req, res) => {
+  r.post("/", allow("engineer"), createsRecord, validate(RateModelCreateSchema), async (req, res) => {
     res.status(201).json({ version: presentRateModel(await docs.createFamily(me(req), req.body)) });
   });
   r.get("/:id/versions", signedIn, async (req, res) => {
     res.json({ versions: (await docs.versionsOf(idParam(req), me(req))).map(presentRateModel) });
   });
-  r.post("/:id/versions", allow("engineer"), validate(RateModelDraftSchema), async (req, res) => {
+  r.post("/:id/versions", allow("engineer"), createsRecord, validate(RateModelDraftSchema), async (req, res) => {
     res.status(201).json({ version: presentRateModel(await docs.createDraft(me(req), idParam(req), req.body.content)) });
   });
   r.get("/versions/:id", signedIn, async (req, res) => {
     res.json({ version: presentRateModel(await docs.get(idParam(req), me(req))) });
   });
-  r.put("/versions/:id", allow("engineer"), validate(RateModelDraftUpdateSchema), async (req, res) => {
+  r.put("/versions/:id", allow("engineer"), changesRecord, validate(RateModelDraftUpdateSchema), async (req, res) => {
     res.json({ version: presentRateModel(await docs.updateDraft(me(req), idParam(req), req.body.content, req.body.reason, req.body.revision)) });
   });
-  r.post("/versions/:id/approve", allow("quality"), validate(SignatureSchema), async (req, res) => {
+  r.post("/versions/:id/approve", allow("quality"), signsRecord, validate(SignatureSchema), async (req, res) => {
     res.json({ version: presentRateModel(await docs.approve(me(req), idParam(req), req.body.password, req.body.comment)) });
   });
-  r.post("/versions/:id/proposal", allow("engineer"), validate(ModelProposalSchema), async (req, res) => {
+  r.post("/versions/:id/proposal", allow("engineer"), createsRecord, validate(ModelProposalSchema), async (req, res) => {
     const result = await proposeModelUpdate(ctx.db, docs, me(req), idParam(req), req.body.batchIds, req.body.save);
     res.status(result.draft ? 201 : 200).json({ points: result.points, arrhenius: result.arrhenius, proposed: result.proposed, draft: result.draft ? presentRateModel(result.draft) : null });
   });

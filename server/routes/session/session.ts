@@ -12,6 +12,7 @@ import { PasswordChangeSchema, SignInSchema, type PasswordChangeInput } from "..
 import { people } from "../../db/schema.js";
 import { hashPassword, verifyPassword } from "../../commands/passwords.js";
 import { recordAudit } from "../../commands/audit.js";
+import { ownSession } from "../../http/recordEffects.js";
 
 const refusals = {
   "bad-credentials": new HttpError(401, "bad-credentials", "The email or password is not right."),
@@ -38,7 +39,7 @@ export function sessionRoutes(ctx: RouteContext, registry: RouteDeclaration[], p
     res.json({ user: (req.user as SignedInPerson | undefined) ?? null, csrfToken: csrfTokenFor(req), sessionExpired: !req.user && req.session.expiredAt !== undefined });
   });
 
-  r.post("/", anyone, signInLimiter, validate(SignInSchema), async (req, res, next) => {
+  r.post("/", anyone, ownSession, signInLimiter, validate(SignInSchema), async (req, res, next) => {
     const { user, reason } = await new Promise<{ user: SignedInPerson | false; reason?: keyof typeof refusals }>((ok, fail) =>
       passport.authenticate("local", (err: unknown, found: SignedInPerson | false, info?: { message?: keyof typeof refusals }) =>
         err ? fail(err) : ok({ user: found, reason: info?.message }),
@@ -51,7 +52,7 @@ export function sessionRoutes(ctx: RouteContext, registry: RouteDeclaration[], p
     res.json({ user, csrfToken: csrfTokenFor(req) });
   });
 
-  r.delete("/", anyone, async (req, res) => {
+  r.delete("/", anyone, ownSession, async (req, res) => {
     const person = req.user as SignedInPerson | undefined;
     if (person) {
       await ctx.db.transaction((tx) => recordAudit(tx, person, { action: "signed-out", entityType: "person", entityId: person.id }));
@@ -61,7 +62,7 @@ export function sessionRoutes(ctx: RouteContext, registry: RouteDeclaration[], p
     res.clearCookie("isobatch.sid").status(204).end();
   });
 
-  r.post("/password", signedInEvenBeforePasswordChange, validate(PasswordChangeSchema), async (req, res) => {
+  r.post("/password", signedInEvenBeforePasswordChange, ownSession, validate(PasswordChangeSchema), async (req, res) => {
     const me = req.user as SignedInPerson;
     const { currentPassword, newPassword } = req.body as PasswordChangeInput;
     const row = await ctx.db.query.people.findFirst({ where: eq(people.id, me.id) });

@@ -11,6 +11,7 @@ import { utcDay } from "../../commands/trainingStatus.js";
 import { presentTrainingRows } from "../../commands/trainingViews.js";
 import { TrainingListQuerySchema, TrainingRecordSchema, TrainingWithdrawSchema, type TrainingListView } from "../../../shared/schemas/training.js";
 import type { Role } from "../../../shared/schemas/roles.js";
+import { changesRecord, createsRecord } from "../../http/recordEffects.js";
 
 /** Roles that see everyone's training; everyone else sees their own. */
 const SEES_ALL: Role[] = ["admin", "supervisor", "quality"];
@@ -42,10 +43,10 @@ export function trainingRoutes(ctx: RouteContext, registry: RouteDeclaration[]) 
     }
     res.json(body);
   });
-  r.post("/", allow(...RECORDERS), validate(TrainingRecordSchema), async (req, res) => {
+  r.post("/", allow(...RECORDERS), createsRecord, validate(TrainingRecordSchema), async (req, res) => {
     res.status(201).json({ record: await recorder.record(me(req), req.body) });
   });
-  r.post("/:id/withdraw", allow(...RECORDERS), validate(TrainingWithdrawSchema), async (req, res) => {
+  r.post("/:id/withdraw", allow(...RECORDERS), changesRecord, validate(TrainingWithdrawSchema), async (req, res) => {
     res.json({ record: await recorder.withdraw(me(req), idParam(req), req.body) });
   });
   return r;

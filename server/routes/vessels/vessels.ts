@@ -9,6 +9,7 @@ import { vessels } from "../../db/schema.js";
 import { presentVessel } from "./presenter.js";
 import { createVesselRegistrar } from "../../commands/vesselRegistrar.js";
 import { VesselCreateSchema, VesselStatusSchema, VesselUpdateSchema } from "../../../shared/schemas/vessels.js";
+import { changesRecord, createsRecord } from "../../http/recordEffects.js";
 
 /** /api/vessels: engineers register and edit; quality takes a vessel out of (or back into) service. */
 export function vesselRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
@@ -20,7 +21,7 @@ export function vesselRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
     const rows = await ctx.db.select().from(vessels).orderBy(asc(vessels.tag));
     res.json({ vessels: rows.map((v) => presentVessel(v, me(req))) });
   });
-  r.post("/", allow("engineer"), validate(VesselCreateSchema), async (req, res) => {
+  r.post("/", allow("engineer"), createsRecord, validate(VesselCreateSchema), async (req, res) => {
     res.status(201).json({ vessel: presentVessel(await registrar.register(me(req), req.body), me(req)) });
   });
   r.get("/:id", signedIn, async (req, res) => {
@@ -28,11 +29,11 @@ export function vesselRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
     if (!row) throw notFound("That vessel");
     res.json({ vessel: presentVessel(row, me(req)) });
   });
-  r.put("/:id", allow("engineer"), validate(VesselUpdateSchema), async (req, res) => {
+  r.put("/:id", allow("engineer"), changesRecord, validate(VesselUpdateSchema), async (req, res) => {
     const { reason, revision, ...input } = req.body;
     res.json({ vessel: presentVessel(await registrar.update(me(req), idParam(req), input, reason, revision), me(req)) });
   });
-  r.post("/:id/status", allow("quality"), validate(VesselStatusSchema), async (req, res) => {
+  r.post("/:id/status", allow("quality"), changesRecord, validate(VesselStatusSchema), async (req, res) => {
     res.json({ vessel: presentVessel(await registrar.setStatus(me(req), idParam(req), req.body.status, req.body.reason), me(req)) });
   });
   return r;

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { gt } from "drizzle-orm";
-import { startTestApp, type TestApp } from "../../support/testApp.js";
+import { Client, startTestApp, type TestApp } from "../../support/testApp.js";
 import { buildApprovedMasterRecord, buildApprovedRateModel, buildPerson, buildPlannedBatch } from "../../factories.js";
 import { BatchDriver } from "../../support/batchDriver.js";
 import { auditEvents } from "../../../server/db/schema.js";
@@ -47,6 +47,27 @@ async function expectReasonRequired(change: Change) {
 }
 
 const revisionOf = async (batchId: string) => (await d.clients.op.get(`/api/batches/${batchId}`)).body.batch.revision as number;
+
+describe("every mutating route declares what it does to the records", () => {
+  it("names an effect on each POST, PUT, PATCH and DELETE route", () => {
+    const mutating = t.routes.filter((r) => r.method !== "get");
+    expect(mutating.length).toBeGreaterThan(30);
+    expect(mutating.filter((r) => !r.effect).map((r) => `${r.method.toUpperCase()} ${r.path}`)).toEqual([]);
+  });
+
+  it("refuses every route that changes a record with 400 naming reason when the body has none", async () => {
+    const everyone = await buildPerson(t.database.db, { roles: ["operator", "supervisor", "quality", "engineer", "admin"] });
+    const c = new Client(t.app);
+    await c.signIn(everyone.email, everyone.password);
+    const changes = t.routes.filter((r) => r.effect === "changes");
+    expect(changes.length).toBeGreaterThanOrEqual(10);
+    for (const route of changes) {
+      const path = route.path.replace(/:[a-zA-Z]+/g, "00000000-0000-4000-8000-000000000000");
+      const res = await c.send(route.method as "post" | "put", path, { password: everyone.password });
+      expect([res.status, res.body.error?.field], `${route.method.toUpperCase()} ${route.path}`).toEqual([400, "reason"]);
+    }
+  });
+});
 
 describe("a change to a record needs a reason", () => {
   it("vessels: edit and status", async () => {
