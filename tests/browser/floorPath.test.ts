@@ -141,6 +141,25 @@ describe("the plant floor's path through a batch", () => {
     // The operator starts the run; the caution comes again before pressurising.
     await op.getByRole("button", { name: "Start the run" }).click();
     await op.getByText("Start the run: done").waitFor({ timeout: 15_000 });
+
+    // A hold needs a reason; so does resuming, which the supervisor also signs.
+    await op.getByRole("button", { name: "Put on hold" }).click();
+    const holdDialog = op.getByRole("dialog");
+    await holdDialog.getByLabel("Reason").fill("Temperature controller alarm");
+    await holdDialog.getByRole("button", { name: "Put on hold" }).click();
+    await op.getByText(/^Put on hold: done/).waitFor({ timeout: 15_000 });
+    await sup.getByRole("button", { name: "Resume" }).click({ timeout: 15_000 });
+    const resumeDialog = sup.getByRole("dialog");
+    await resumeDialog.getByRole("button", { name: "Continue to signature" }).click();
+    await resumeDialog.getByText(/must say why/i).waitFor({ timeout: 5_000 });
+    await resumeDialog.getByLabel("Reason").fill("Controller replaced and checked");
+    await resumeDialog.getByRole("button", { name: "Continue to signature" }).click();
+    await sup.getByRole("dialog").getByLabel("Your password").fill(supervisor.password);
+    await sup.getByRole("dialog").getByRole("button", { name: "Sign: resumed" }).click();
+    await sup.getByText(/^Resume: done/).waitFor({ timeout: 15_000 });
+    const [resumed] = await db.select().from(auditEvents).where(and(eq(auditEvents.entityId, batch.id), eq(auditEvents.action, "batch-resume")));
+    expect(resumed.reason).toBe("Controller replaced and checked");
+    await op.getByRole("button", { name: "Put on hold" }).waitFor({ timeout: 15_000 });
     const pressurise = card(op, "Pressurise and heat");
     await pressurise.getByRole("complementary", { name: "Caution before pressurising" }).waitFor();
     await pressurise.getByLabel("Temperature at start").fill("250.1");
