@@ -2,6 +2,7 @@ import { and, eq, sql } from "drizzle-orm";
 import type { Db, DbOrTx } from "../db/client.js";
 import { masterRecords, masterRecordVersions, people, trainingRecords } from "../db/schema.js";
 import { recordAudit } from "./audit.js";
+import { announce } from "../services/live.js";
 import { confirmSigner, recordSignature } from "./signatureRecorder.js";
 import type { CheckCredentials } from "./credentialChecker.js";
 import type { Notifier } from "./notifier.js";
@@ -105,6 +106,7 @@ export function createTrainingRecorder(deps: TrainingRecorderDeps) {
         const [view] = await presentTrainingRows(tx, [row]);
         await recordSignature(tx, actor, { meaning: "training-recorded", entityType: TRAINING_ENTITY, entityId: row.id, content: signedTraining(view) });
         await recordAudit(tx, actor, { action: "training-recorded", entityType: TRAINING_ENTITY, entityId: row.id, after: view });
+        await announce(tx, { kind: "training", id: trainee.id });
         await deps.notify.toPerson(
           tx,
           trainee.id,
@@ -126,6 +128,7 @@ export function createTrainingRecorder(deps: TrainingRecorderDeps) {
         const [after] = await presentTrainingRows(tx, [updated]);
         await recordSignature(tx, actor, { meaning: "training-withdrawn", entityType: TRAINING_ENTITY, entityId: id, content: { ...signedTraining(after), withdrawnAt: after.withdrawnAt, withdrawReason: after.withdrawReason }, comment: input.reason });
         await recordAudit(tx, actor, { action: "training-withdrawn", entityType: TRAINING_ENTITY, entityId: id, before, after, reason: input.reason });
+        await announce(tx, { kind: "training", id: row.personId });
         const { code, version } = after.masterRecord;
         await deps.notify.toPerson(
           tx,

@@ -6,7 +6,8 @@ import type { DbOrTx } from "../db/client.js";
 export const LIVE_CHANNEL = "isobatch_changes";
 
 export interface Change {
-  kind: "batch" | "deviation" | "queue";
+  /** For "training", the id is the trainee's: their batch pages may now allow or refuse steps. */
+  kind: "batch" | "deviation" | "queue" | "training";
   id: string;
 }
 

@@ -48,6 +48,24 @@ describe("training records", () => {
     expect(mail.some((m) => m.subject.includes(`${mr.code} version ${mr.version}`) && m.textBody.includes(`valid until ${day(200)}`))).toBe(true);
   });
 
+  it("announces recorded and withdrawn training on the live feed, naming the trainee", async () => {
+    const mr = await buildApprovedMasterRecord(t.database.db);
+    const { person } = await signedIn(["operator"]);
+    const listener = await t.database.pool.connect();
+    const heard: string[] = [];
+    listener.on("notification", (m) => heard.push(m.payload ?? ""));
+    await listener.query("listen isobatch_changes");
+    try {
+      const record = await recorded(person.id, mr.id);
+      const change = JSON.stringify({ kind: "training", id: person.id });
+      await expect.poll(() => heard.filter((h) => h === change).length).toBe(1);
+      expect((await d.clients.sup.post(`/api/training/${record.id}/withdraw`, { reason: "recorded on the wrong version", password: d.people.sup.password })).status).toBe(200);
+      await expect.poll(() => heard.filter((h) => h === change).length).toBe(2);
+    } finally {
+      listener.release();
+    }
+  });
+
   it("refuses a superseded version, saying which version is current, and a draft", async () => {
     const v1 = await buildApprovedMasterRecord(t.database.db);
     const draft = await d.clients.eng.post(`/api/master-records/${v1.familyId}/versions`, { content: DEMO_MASTER_RECORD_DRAFT });

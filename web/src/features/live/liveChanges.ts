@@ -2,10 +2,11 @@ import type { QueryClient } from "@tanstack/react-query";
 import { batchKeys } from "../batches/queries";
 import { deviationKeys } from "../deviations/queries";
 import { queueKeys } from "../queues/queries";
+import { trainingKeys } from "../training/queries";
 
 /** What GET /api/live names in each `change` event. */
 export interface LiveChange {
-  kind: "batch" | "deviation" | "queue";
+  kind: "batch" | "deviation" | "queue" | "training";
   id: string;
 }
 
@@ -14,7 +15,7 @@ export function parseLiveChange(data: unknown): LiveChange | null {
   if (typeof data !== "string") return null;
   try {
     const value = JSON.parse(data) as Partial<LiveChange>;
-    if ((value.kind === "batch" || value.kind === "deviation" || value.kind === "queue") && typeof value.id === "string") return { kind: value.kind, id: value.id };
+    if ((value.kind === "batch" || value.kind === "deviation" || value.kind === "queue" || value.kind === "training") && typeof value.id === "string") return { kind: value.kind, id: value.id };
   } catch {
     // Not JSON: ignore it.
   }
@@ -23,6 +24,12 @@ export function parseLiveChange(data: unknown): LiveChange | null {
 
 /** Marks stale every query a change can affect: the changed batch, the lists and the queues. */
 export function invalidateForChange(queryClient: QueryClient, change: LiveChange): void {
+  if (change.kind === "training") {
+    // Someone's training changed: open batch pages say again who may perform or verify.
+    void queryClient.invalidateQueries({ queryKey: trainingKeys.all });
+    void queryClient.invalidateQueries({ queryKey: batchKeys.all });
+    return;
+  }
   if (change.kind === "batch") {
     void queryClient.invalidateQueries({ queryKey: batchKeys.detail(change.id) });
     void queryClient.invalidateQueries({ queryKey: batchKeys.trace(change.id) });
