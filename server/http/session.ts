@@ -24,7 +24,7 @@ export interface SessionOptions {
 
 /** Sessions in PostgreSQL, passport on top, idle timeout and CSRF check: in that order. */
 export function sessionMiddleware(opts: SessionOptions) {
-  const { store, takePerson } = createSessionStore(opts.pool);
+  const { store, personReadWith } = createSessionStore(opts.pool);
   const instance: passport.Authenticator = new passport.Passport();
   instance.use(
     new LocalStrategy({ usernameField: "email", passwordField: "password" }, (email, password, done) => {
@@ -35,10 +35,10 @@ export function sessionMiddleware(opts: SessionOptions) {
     }),
   );
   instance.serializeUser<string>((user, done) => done(null, (user as SignedInPerson).id));
-  instance.deserializeUser<string>(async (req: Express.Request & { sessionID?: string }, id: string, done: (err: unknown, user?: SignedInPerson | false) => void) => {
+  instance.deserializeUser<string>(async (req: Express.Request, id: string, done: (err: unknown, user?: SignedInPerson | false) => void) => {
     try {
       // Normally read with the session itself (one query); looked up alone when it was not.
-      const read = req.sessionID ? takePerson(req.sessionID) : undefined;
+      const read = personReadWith(req);
       const row = read !== undefined ? (read?.id === id ? read : null) : await opts.db.query.people.findFirst({ where: eq(people.id, id) });
       // A deactivated or locked person is signed out on their next request.
       if (!row || !row.active || row.lockedAt) return done(null, false);

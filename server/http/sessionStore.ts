@@ -34,35 +34,44 @@ const READ = {
          where s.sid = $1 and s.expire >= now()`,
 };
 
+/** Where the person read with the session waits for passport, on the request itself. */
+const PERSON = Symbol("session person");
+type WithPerson = { [PERSON]?: SessionPerson | null };
+
 /**
  * Sessions in the `session` table (connect-pg-simple writes them). The expiry is written with
  * each save (idle time is tracked in the session itself), so the per-request touch is off.
- * `takePerson(sid)` hands the person read with the session to passport's deserializer, once.
+ * The person read with the session is moved onto the request (never into the stored session);
+ * `personReadWith(req)` hands it to passport's deserializer.
  */
 export function createSessionStore(pool: pg.Pool) {
   const PgStore = connectPgSimple(session);
-  const readPeople = new Map<string, SessionPerson | null>();
   class SessionStore extends PgStore {
     override get(sid: string, fn: (err: unknown, sess?: session.SessionData | null) => void) {
       pool.query<Row>({ ...READ, values: [sid] }).then(
         (result) => {
           const row = result.rows[0];
           if (!row) return fn(null, null);
-          readPeople.set(sid, row.id ? { id: row.id, email: row.email, name: row.name, roles: row.roles, mustChangePassword: row.must_change_password, active: row.active, lockedAt: row.locked_at } : null);
-          fn(null, row.sess);
+          const sess = row.sess as session.SessionData & WithPerson;
+          sess[PERSON] = row.id ? { id: row.id, email: row.email, name: row.name, roles: row.roles, mustChangePassword: row.must_change_password, active: row.active, lockedAt: row.locked_at } : null;
+          fn(null, sess);
         },
         (err) => fn(err),
       );
+    }
+    // express-session builds the request's session from what get() returned, here.
+    override createSession(req: Express.Request, sess: session.SessionData & WithPerson) {
+      (req as Express.Request & WithPerson)[PERSON] = sess[PERSON];
+      delete sess[PERSON];
+      return super.createSession(req as Parameters<session.Store["createSession"]>[0], sess);
     }
   }
   const store = new SessionStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60, disableTouch: true });
   return {
     store,
-    /** The person read with this session in the current request; undefined when not read. */
-    takePerson(sid: string): SessionPerson | null | undefined {
-      const person = readPeople.get(sid);
-      readPeople.delete(sid);
-      return person;
+    /** The person read with this request's session; undefined when it was not read that way. */
+    personReadWith(req: Express.Request): SessionPerson | null | undefined {
+      return (req as Express.Request & WithPerson)[PERSON];
     },
   };
 }
