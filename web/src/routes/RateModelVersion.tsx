@@ -4,12 +4,10 @@ import { Link, useNavigate, useParams } from "react-router";
 import { Breadcrumb } from "../components/Breadcrumb";
 import { Notice } from "../components/Notice";
 import { QueryState } from "../components/QueryState";
-import { SignatureDialog } from "../components/SignatureDialog";
-import { SignatureList } from "../components/SignatureList";
+import { ApprovalDialog } from "../components/ApprovalDialog";
+import { VersionSidebar } from "../components/VersionSidebar";
 import { StatusBadge } from "../components/StatusBadge";
 import { VersionActions } from "../components/VersionActions";
-import { VersionHistory } from "../components/VersionHistory";
-import { VersionMeta } from "../components/VersionMeta";
 import { useApproveRateModelMutation } from "../features/rateModels/mutations";
 import { useSession } from "../features/session/useSession";
 import { rateModelVersionQueryOptions, rateModelVersionsQueryOptions } from "../features/rateModels/queries";
@@ -122,37 +120,15 @@ function VersionScreen({ versionId }: { versionId: string }) {
             {mode === "view" && (
               <div className="grid items-start gap-6 xl:grid-cols-[3fr_2fr]">
                 <RateModelSummary version={version} />
-                <div className="flex flex-col gap-6">
-                  <section aria-labelledby="rm-record-title" className="rounded-lg border-2 border-ink-200 bg-white p-5">
-                    <h2 id="rm-record-title" className="mb-2 text-xl font-bold">
-                      Record
-                    </h2>
-                    <VersionMeta {...version} />
-                  </section>
-                  <section aria-labelledby="rm-signatures-title" className="flex flex-col gap-2">
-                    <h2 id="rm-signatures-title" className="text-xl font-bold">
-                      Signatures
-                    </h2>
-                    <SignatureList signatures={version.signatures} emptyMessage="Not signed yet." />
-                  </section>
-                  <VersionHistory versions={others} currentId={version.id} hrefFor={versionHref} />
-                </div>
+                <VersionSidebar idPrefix="rm" version={version} versions={others} hrefFor={versionHref} />
               </div>
             )}
-            <SignatureDialog
+            <ApprovalDialog
               open={signing}
-              meaning="approved"
               subject={subject}
-              sign={(signature) => approve.mutateAsync({ id: version.id, ...signature })}
+              approve={(signature) => approve.mutateAsync({ id: version.id, ...signature })}
               onClose={() => setSigning(false)}
-              onLocked={(text) => {
-                setSigning(false);
-                setMessage({ tone: "error", text });
-              }}
-              onSigned={() => {
-                setSigning(false);
-                setMessage({ tone: "success", text: `${subject} is approved. Any version approved before it is now superseded.` });
-              }}
+              onOutcome={setMessage}
             />
           </>
         )}
