@@ -4,6 +4,7 @@ import type { FieldDefinition, Phase } from "../../../../shared/schemas/masterRe
 import type { RateModelContent } from "../../../../shared/schemas/rateModels";
 import type { BatchFacts, BatchMove, BatchState, HoldableState, Refusal } from "../../../../shared/machines/batchMoves";
 import type { BatchTrainingView } from "../../../../shared/schemas/training";
+import type { Forecast } from "../../../../shared/execution/forecast";
 
 /** A person as the batch view names them. */
 export interface PersonRef {
@@ -157,16 +158,7 @@ export interface BatchTraceView {
   trace: { t: number[]; V: number[]; T: number[] | null; P: number[] | null; files: number };
   predicted: number[];
   kModel: number;
-  forecast: {
-    basis: "trace" | "model";
-    k: number;
-    currentConversion: number;
-    targetAtS: number | null;
-    targetRangeS: [number, number] | null;
-    remainingS: number | null;
-    remainingUncertaintyS: number | null;
-    message: string;
-  };
+  forecast: Forecast;
 }
 
 /** POST /api/batches/:id/traces: what adding a logger file found. */

@@ -1,20 +1,6 @@
-/** A deviation as GET /api/deviations lists it. */
-export interface DeviationListRow {
-  id: string;
-  batchId: string;
-  batchCode: string;
-  stepKey: string | null;
-  source: string;
-  title: string;
-  description: string;
-  severity: "minor" | "major" | "critical";
-  status: "open" | "investigated" | "closed";
-  rootCause: string | null;
-  action: string | null;
-  coversKinetics: boolean;
-  raisedAt: string;
-  closedAt: string | null;
-  revision: number;
-}
+import type { DeviationOnBatch } from "../batches/types";
+
+/** A deviation as GET /api/deviations lists it: as on its batch page, with the batch named, without the people. */
+export type DeviationListRow = Omit<DeviationOnBatch, "raisedBy" | "investigatedBy" | "closedBy"> & { batchId: string; batchCode: string };
 
 export type DeviationStatusFilter = "not-closed" | "open" | "investigated" | "closed";

@@ -1,21 +1,15 @@
 import type { ReactNode } from "react";
 import { Caution } from "../../components/Caution";
 import { formatNumber } from "../vessels/quantityFormat";
+import type { CheckResponse } from "../../../../shared/schemas/kinetics";
 
 const mL = (litres: number | null) => (litres === null ? "—" : `${formatNumber(litres * 1000, 4)} mL`);
 
 /** The figures of a kinetics check, whether it ran in the browser or on the server. */
-export interface CheckFigures {
-  kObserved: number | null;
-  kObservedCI95: [number | null, number | null];
-  kModel: number;
-  kUnit: string;
-  deviationPct: number | null;
-  residualRms: number | null;
+export type CheckFigures = Pick<CheckResponse, "kObserved" | "kObservedCI95" | "kModel" | "kUnit" | "deviationPct" | "residualRms" | "points" | "maxConversion"> & {
+  /** The model's residual limit, L. */
   residualRmsMax: number;
-  points: number;
-  maxConversion: number | null;
-}
+};
 
 /** The check's key figures as a definition list; `children` adds rows of the caller's own. */
 export function CheckFigureList({ figures: f, children }: { figures: CheckFigures; children?: ReactNode }) {

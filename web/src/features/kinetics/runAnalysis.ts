@@ -6,27 +6,15 @@ import { selectFitPoints } from "../../../../shared/kinetics/traceSelection";
 import type { ParsedTrace } from "../../../../shared/kinetics/traceCsvParser";
 import type { CheckResponse, FitResponse, OrderTrialView } from "../../../../shared/schemas/kinetics";
 import type { AnalysisSetup } from "./analysisForm";
+import type { CheckFigures } from "./CheckFigureList";
 import { uploadTrace } from "./uploadTrace";
 
 type Series = ArrayLike<number | null>;
 
 /** One check result, from the browser or the server, in the shape the screen shows. */
-export interface AnalysisOutcome {
+export interface AnalysisOutcome extends CheckFigures, Pick<CheckResponse, "verdict" | "reasons" | "notes" | "notice"> {
   where: "browser" | "server";
-  verdict: "within" | "outside";
-  reasons: { code: string; message: string }[];
-  kObserved: number | null;
-  kObservedCI95: [number | null, number | null];
-  kModel: number;
-  kUnit: string;
-  deviationPct: number | null;
-  residualRms: number | null;
-  residualRmsMax: number;
-  points: number;
-  maxConversion: number | null;
   V0: number;
-  notes: string[];
-  notice: string;
   /** Model volume at every trace time, L. */
   predicted: Series;
   /** Fit residuals (L) at the times the fit used. */
