@@ -1,11 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import type { Server } from "node:http";
 import { createRequire } from "node:module";
-import { startTestApp, type TestApp } from "../support/testApp.js";
+import type { TestApp } from "../support/testApp.js";
 import { buildPerson, buildPlannedBatch, type BuiltPerson } from "../factories.js";
 import { BatchDriver, firstOrderCsv } from "../support/batchDriver.js";
-import { ensureWebBuilt, launchChromium, listen, webDist } from "../support/browser.js";
+import { startBrowserApp, type BrowserApp } from "../support/browser.js";
 import type { Role } from "../../shared/schemas/roles.js";
 
 // Checked with axe-core (the open-source WCAG 2.x rule engine, run as a general-purpose
@@ -15,7 +14,7 @@ const BLOCKING = new Set(["serious", "critical"]);
 
 let t: TestApp;
 let browser: Browser;
-let server: Server;
+let rig: BrowserApp;
 let base: string;
 const people = {} as Record<Role, BuiltPerson>;
 let campaignId: string;
@@ -23,8 +22,8 @@ let runningBatchId: string;
 let reviewBatchId: string;
 
 beforeAll(async () => {
-  await ensureWebBuilt();
-  t = await startTestApp({ settings: { webDist } });
+  rig = await startBrowserApp();
+  ({ t, base, browser } = rig);
   const db = t.database.db;
   for (const role of ["operator", "supervisor", "quality", "engineer", "admin"] as Role[]) {
     people[role] = await buildPerson(db, { roles: [role], name: `Axe ${role}` });
@@ -46,15 +45,9 @@ beforeAll(async () => {
   expect((await driver.clients.op.post(`/api/batches/${runningBatchId}/traces`, { fileId: file.id })).status).toBe(201);
   const raised = await driver.clients.op.post(`/api/batches/${runningBatchId}/deviations`, { title: "Seal weeping", description: "Slight weep at the piston seal during the leak test.", severity: "major", stepKey: "reliefCheck" });
   expect(raised.status).toBe(201);
-  ({ url: base, server } = await listen(t.app));
-  browser = await launchChromium();
 }, 180_000);
 
-afterAll(async () => {
-  await browser?.close();
-  server?.close();
-  await t?.close();
-});
+afterAll(() => rig?.close());
 
 /** Waits until the screen shows its heading and nothing on it is still loading. */
 async function waitForScreen(page: Page): Promise<string> {

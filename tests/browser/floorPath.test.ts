@@ -1,16 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import type { Server } from "node:http";
 import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
-import { startTestApp, type TestApp } from "../support/testApp.js";
+import type { TestApp } from "../support/testApp.js";
 import { buildPerson, buildPlannedBatch, type BuiltPerson } from "../factories.js";
-import { ensureWebBuilt, launchChromium, listen, webDist } from "../support/browser.js";
+import { startBrowserApp, type BrowserApp } from "../support/browser.js";
 import { auditEvents, batches, mailOutbox, signatures, stepEntries } from "../../server/db/schema.js";
 
 let t: TestApp;
 let browser: Browser;
-let server: Server;
+let rig: BrowserApp;
 let base: string;
 let operator: BuiltPerson;
 let supervisor: BuiltPerson;
@@ -52,19 +51,13 @@ async function performAndSign(page: Page, title: string, password: string) {
 }
 
 beforeAll(async () => {
-  await ensureWebBuilt();
-  t = await startTestApp({ settings: { webDist } });
+  rig = await startBrowserApp();
+  ({ t, base, browser } = rig);
   operator = await buildPerson(t.database.db, { roles: ["operator"], name: "Floor Operator" });
   supervisor = await buildPerson(t.database.db, { roles: ["supervisor"], name: "Floor Supervisor" });
-  ({ url: base, server } = await listen(t.app));
-  browser = await launchChromium();
 }, 180_000);
 
-afterAll(async () => {
-  await browser?.close();
-  server?.close();
-  await t?.close();
-});
+afterAll(() => rig?.close());
 
 describe("the plant floor's path through a batch", () => {
   it("charges and runs a batch with critical steps verified from the mail's link, adds a trace and sends it for review", async () => {

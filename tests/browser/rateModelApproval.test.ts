@@ -1,15 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import type { Server } from "node:http";
 import { and, eq } from "drizzle-orm";
-import { startTestApp, type TestApp } from "../support/testApp.js";
+import type { TestApp } from "../support/testApp.js";
 import { buildApprovedRateModel, buildPerson, type BuiltPerson } from "../factories.js";
-import { ensureWebBuilt, launchChromium, listen, webDist } from "../support/browser.js";
+import { startBrowserApp, type BrowserApp } from "../support/browser.js";
 import { rateModelVersions, signatures } from "../../server/db/schema.js";
 
 let t: TestApp;
 let browser: Browser;
-let server: Server;
+let rig: BrowserApp;
 let base: string;
 let engineer: BuiltPerson;
 let quality: BuiltPerson;
@@ -17,20 +16,14 @@ let approvedV1: Awaited<ReturnType<typeof buildApprovedRateModel>>;
 let draftId: string;
 
 beforeAll(async () => {
-  await ensureWebBuilt();
-  t = await startTestApp({ settings: { webDist } });
+  rig = await startBrowserApp();
+  ({ t, base, browser } = rig);
   engineer = await buildPerson(t.database.db, { roles: ["engineer"], name: "Browser Engineer" });
   quality = await buildPerson(t.database.db, { roles: ["quality"], name: "Browser Quality" });
   approvedV1 = await buildApprovedRateModel(t.database.db);
-  ({ url: base, server } = await listen(t.app));
-  browser = await launchChromium();
 }, 180_000);
 
-afterAll(async () => {
-  await browser?.close();
-  server?.close();
-  await t?.close();
-});
+afterAll(() => rig?.close());
 
 async function signIn(person: BuiltPerson): Promise<Page> {
   const page = await browser.newPage();

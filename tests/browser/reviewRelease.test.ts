@@ -1,15 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import type { Server } from "node:http";
-import { startTestApp, type TestApp } from "../support/testApp.js";
+import type { TestApp } from "../support/testApp.js";
 import { buildPlannedBatch } from "../factories.js";
 import { BatchDriver } from "../support/batchDriver.js";
-import { ensureWebBuilt, launchChromium, listen, webDist } from "../support/browser.js";
+import { startBrowserApp, type BrowserApp } from "../support/browser.js";
 
 let t: TestApp;
 let d: BatchDriver;
 let browser: Browser;
-let server: Server;
+let rig: BrowserApp;
 let base: string;
 
 // The demo model's k at 250 °C, 1/s; the driver's trace is the closed-form first-order rise
@@ -17,21 +16,15 @@ let base: string;
 const K = 2.0e-3;
 
 beforeAll(async () => {
-  await ensureWebBuilt();
-  t = await startTestApp({ settings: { webDist } });
+  rig = await startBrowserApp();
+  ({ t, base, browser } = rig);
   d = new BatchDriver(t.app, t.database.db);
   await d.add("op", ["operator"]);
   await d.add("sup", ["supervisor"]);
   await d.add("qa", ["quality"]);
-  ({ url: base, server } = await listen(t.app));
-  browser = await launchChromium();
 }, 180_000);
 
-afterAll(async () => {
-  await browser?.close();
-  server?.close();
-  await t?.close();
-});
+afterAll(() => rig?.close());
 
 /** A batch in review with k = K and one charge entry over its limit (124 g of DMX at V0 = 22 L). */
 async function batchInReviewWithOneException() {

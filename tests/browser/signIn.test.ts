@@ -1,29 +1,22 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import type { Server } from "node:http";
-import { startTestApp, type TestApp } from "../support/testApp.js";
+import type { TestApp } from "../support/testApp.js";
 import { buildPerson, type BuiltPerson } from "../factories.js";
-import { ensureWebBuilt, launchChromium, listen, webDist } from "../support/browser.js";
+import { startBrowserApp, type BrowserApp } from "../support/browser.js";
 
 let t: TestApp;
 let browser: Browser;
-let server: Server;
+let rig: BrowserApp;
 let base: string;
 let operator: BuiltPerson;
 
 beforeAll(async () => {
-  await ensureWebBuilt();
-  t = await startTestApp({ settings: { webDist } });
+  rig = await startBrowserApp();
+  ({ t, base, browser } = rig);
   operator = await buildPerson(t.database.db, { roles: ["operator"], name: "Browser Operator" });
-  ({ url: base, server } = await listen(t.app));
-  browser = await launchChromium();
 }, 180_000);
 
-afterAll(async () => {
-  await browser?.close();
-  server?.close();
-  await t?.close();
-});
+afterAll(() => rig?.close());
 
 describe("signing in from the browser", () => {
   it("signs the operator in, shows the operator home, and signs out", async () => {

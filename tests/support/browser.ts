@@ -4,6 +4,7 @@ import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import type { Server } from "node:http";
 import type { Express } from "express";
+import { startTestApp, type TestApp } from "./testApp.js";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
 export const webDist = join(root, "dist", "web");
@@ -41,4 +42,30 @@ export function listen(app: Express): Promise<{ url: string; server: Server }> {
       ok({ url: `http://127.0.0.1:${typeof address === "object" && address ? address.port : 0}`, server });
     });
   });
+}
+
+/** A test app serving the built web client, and a browser to drive it. */
+export interface BrowserApp {
+  t: TestApp;
+  base: string;
+  browser: Browser;
+  close(): Promise<void>;
+}
+
+/** Builds the client if needed, starts a test app serving it on loopback and launches chromium. */
+export async function startBrowserApp(): Promise<BrowserApp> {
+  await ensureWebBuilt();
+  const t = await startTestApp({ settings: { webDist } });
+  const { url, server } = await listen(t.app);
+  const browser = await launchChromium();
+  return {
+    t,
+    base: url,
+    browser,
+    close: async () => {
+      await browser.close();
+      server.close();
+      await t.close();
+    },
+  };
 }
