@@ -2,7 +2,6 @@ import { useId } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { SchemaField } from "../../components/SchemaField";
@@ -13,6 +12,7 @@ import { applyServerFieldError, errorMessage } from "../../lib/serverFieldErrors
 import { SEVERITY_WORDS } from "../deviations/deviationWords";
 import { useRaiseDeviationMutation } from "./mutations";
 import type { BatchView } from "./types";
+import { FormActions } from "../../components/FormActions";
 
 type RaiseValues = z.input<typeof DeviationRaiseSchema>;
 
@@ -66,14 +66,7 @@ export function RaiseDeviationForm({ view, onDone, onCancel }: { view: BatchView
           ))}
         </SelectInput>
       </SchemaField>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={raise.isPending}>
-          Raise the deviation
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Raise the deviation" busy={raise.isPending} onCancel={onCancel} />
     </form>
   );
 }

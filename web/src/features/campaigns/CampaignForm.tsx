@@ -3,7 +3,6 @@ import { useForm, type Path } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { ApiError } from "../../api/client";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { SchemaField } from "../../components/SchemaField";
@@ -16,6 +15,7 @@ import { rateModelListQueryOptions } from "../rateModels/queries";
 import { formatNumber } from "../vessels/quantityFormat";
 import { useCreateCampaignMutation } from "./mutations";
 import type { CampaignView } from "./types";
+import { FormActions } from "../../components/FormActions";
 
 type CampaignValues = z.input<typeof CampaignCreateSchema>;
 const FIELDS = ["code", "process", "masterRecordVersionId", "rateModelVersionId"] as const;
@@ -83,14 +83,7 @@ export function CampaignForm({ onDone, onCancel }: { onDone: (campaign: Campaign
         approvedModels.map((v) => ({ id: v.id, text: `${v.code} version ${v.version} — εA ${formatNumber(v.derived.epsilonA, 4)}` })),
         "Only approved versions can be used.",
       )}
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={create.isPending}>
-          Open campaign
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Open campaign" busy={create.isPending} onCancel={onCancel} />
     </form>
   );
 }

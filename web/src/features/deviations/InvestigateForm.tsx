@@ -2,7 +2,6 @@ import { useId } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { SchemaField } from "../../components/SchemaField";
@@ -10,6 +9,7 @@ import { TextArea } from "../../components/TextInput";
 import { DeviationInvestigateSchema } from "../../../../shared/schemas/batches";
 import { errorMessage } from "../../lib/serverFieldErrors";
 import { useInvestigateDeviationMutation } from "./mutations";
+import { FormActions } from "../../components/FormActions";
 
 type InvestigateValues = z.input<typeof DeviationInvestigateSchema>;
 
@@ -53,14 +53,7 @@ export function InvestigateForm({ deviation, onDone, onCancel }: { deviation: In
           {kineticsHint}
         </p>
       </div>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={investigate.isPending}>
-          Record the investigation
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Record the investigation" busy={investigate.isPending} onCancel={onCancel} />
     </form>
   );
 }

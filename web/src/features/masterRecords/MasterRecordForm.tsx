@@ -1,6 +1,5 @@
 import { FormProvider, useForm, type Path } from "react-hook-form";
 import { ApiError } from "../../api/client";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { NumberField } from "../../components/NumberField";
@@ -13,6 +12,7 @@ import { masterRecordResolver, type MasterRecordFormMode, type MasterRecordFormO
 import { builderErrorAt } from "./masterRecordFormContext";
 import { useCreateMasterRecordMutation, useStartMasterRecordDraftMutation, useUpdateMasterRecordDraftMutation } from "./mutations";
 import { PhaseEditor } from "./PhaseEditor";
+import { FormActions } from "../../components/FormActions";
 
 export interface MasterRecordFormProps {
   mode: MasterRecordFormMode;
@@ -92,14 +92,7 @@ export function MasterRecordForm({ mode, initial, recordId, draft, submitLabel, 
           <TextArea id="mr-notes" rows={3} {...register("content.notes")} />
         </SchemaField>
         {mode === "edit" && <ReasonField id="mr-reason" error={schemaMessage(errors.reason?.message)} registration={register("reason")} />}
-        <div className="flex flex-wrap gap-3">
-          <Button type="submit" busy={current.isPending}>
-            {submitLabel}
-          </Button>
-          <Button variant="secondary" onClick={onCancel}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions submitLabel={submitLabel} busy={current.isPending} onCancel={onCancel} />
       </form>
     </FormProvider>
   );

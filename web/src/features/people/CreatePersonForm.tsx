@@ -2,7 +2,6 @@ import { Controller, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { ApiError } from "../../api/client";
 import type { Person } from "../../api/types";
-import { Button } from "../../components/Button";
 import { Field, describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { TextInput } from "../../components/TextInput";
@@ -12,6 +11,7 @@ import { useCreatePersonMutation } from "./mutations";
 import { createPersonSchema, type CreatePersonValues } from "./personSchemas";
 import { ReasonField } from "./ReasonField";
 import { RoleCheckboxes } from "./RoleCheckboxes";
+import { FormActions } from "../../components/FormActions";
 
 const FIELD_NAMES = ["name", "email", "roles", "temporaryPassword", "reason"] as const;
 const PASSWORD_HINT = `At least ${MIN_PASSWORD_LENGTH} characters. Give it to the person in private; they must replace it when they first sign in.`;
@@ -107,14 +107,7 @@ export function CreatePersonForm({
         />
       </Field>
       <ReasonField id="new-person-reason" error={errors.reason?.message} registration={register("reason")} />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={createPerson.isPending}>
-          Create account
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Create account" busy={createPerson.isPending} onCancel={onCancel} />
     </form>
   );
 }

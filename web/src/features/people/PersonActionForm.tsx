@@ -3,7 +3,6 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { ApiError } from "../../api/client";
 import type { Role } from "../../api/types";
-import { Button } from "../../components/Button";
 import { Field, describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { TextInput } from "../../components/TextInput";
@@ -20,6 +19,7 @@ import { ACTION_BUTTON_LABELS, type PersonAction } from "./personActions";
 import { assignRolesSchema, reasonSchema, resetPasswordSchema } from "./personSchemas";
 import { ReasonField } from "./ReasonField";
 import { RoleCheckboxes } from "./RoleCheckboxes";
+import { FormActions } from "../../components/FormActions";
 
 // One form covers every row action; fields the action does not use are simply not shown.
 const actionFormSchema = assignRolesSchema.partial({ roles: true }).extend({
@@ -133,14 +133,7 @@ export function PersonActionForm({
         </Field>
       )}
       <ReasonField id="action-reason" error={errors.reason?.message} registration={register("reason")} />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" variant={kind === "deactivate" ? "danger" : "primary"} busy={current.isPending}>
-          {ACTION_BUTTON_LABELS[kind] === "Roles" ? "Save roles" : ACTION_BUTTON_LABELS[kind]}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel={ACTION_BUTTON_LABELS[kind] === "Roles" ? "Save roles" : ACTION_BUTTON_LABELS[kind]} busy={current.isPending} variant={kind === "deactivate" ? "danger" : "primary"} onCancel={onCancel} />
     </form>
   );
 }

@@ -1,6 +1,5 @@
 import { FormProvider, useForm, type Path } from "react-hook-form";
 import { ApiError } from "../../api/client";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { SchemaField, schemaMessage } from "../../components/SchemaField";
@@ -14,6 +13,7 @@ import { KineticsFields } from "./KineticsFields";
 import { useCreateRateModelMutation, useStartRateModelDraftMutation, useUpdateRateModelDraftMutation } from "./mutations";
 import { ReactionFields } from "./ReactionFields";
 import { contentPathToForm, rateModelResolver, type RateModelFormMode, type RateModelFormOutput, type RateModelFormValues } from "./rateModelFormValues";
+import { FormActions } from "../../components/FormActions";
 
 const HINTS = {
   code: "Short and unique, e.g. DMX-CRACK.",
@@ -106,14 +106,7 @@ export function RateModelForm({ mode, initial, modelId, draft, submitLabel, onSa
           <TextArea id="rm-notes" rows={3} invalid={Boolean(errors.notes)} aria-describedby={describedBy("rm-notes", HINTS.notes, errors.notes?.message)} {...register("notes")} />
         </SchemaField>
         {mode === "edit" && <ReasonField id="rm-reason" error={schemaMessage(errors.reason?.message)} registration={register("reason")} />}
-        <div className="flex flex-wrap gap-3">
-          <Button type="submit" busy={current.isPending}>
-            {submitLabel}
-          </Button>
-          <Button variant="secondary" onClick={onCancel}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions submitLabel={submitLabel} busy={current.isPending} onCancel={onCancel} />
       </form>
     </FormProvider>
   );

@@ -4,7 +4,6 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useQuery } from "@tanstack/react-query";
 import type { z } from "zod";
 import { ApiError } from "../../api/client";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { SchemaField, schemaMessage } from "../../components/SchemaField";
@@ -14,6 +13,7 @@ import { errorMessage } from "../../lib/serverFieldErrors";
 import { TrainingRecordSchema, type TraineeChoice, type TrainingRecordView } from "../../../../shared/schemas/training";
 import { masterRecordListQueryOptions } from "../masterRecords/queries";
 import { useRecordTrainingMutation } from "./mutations";
+import { FormActions } from "../../components/FormActions";
 
 type FormValues = z.input<typeof TrainingRecordSchema>;
 const FIELDS = ["personId", "masterRecordVersionId", "trainedOn", "validUntil", "note", "password"] as const;
@@ -89,14 +89,7 @@ export function RecordTrainingForm({ people, selfId, onRecorded, onCancel }: { p
       <SchemaField id={ids.password} label="Your password" hint={passwordHint} error={error("password")}>
         <TextInput id={ids.password} type="password" autoComplete="current-password" invalid={Boolean(errors.password)} aria-describedby={described(ids.password, "password", passwordHint)} {...register("password")} />
       </SchemaField>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={record.isPending}>
-          Sign: training recorded
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Sign: training recorded" busy={record.isPending} onCancel={onCancel} />
     </form>
   );
 }

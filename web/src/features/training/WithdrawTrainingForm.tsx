@@ -3,7 +3,6 @@ import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { ApiError } from "../../api/client";
-import { Button } from "../../components/Button";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
 import { SchemaField, schemaMessage } from "../../components/SchemaField";
@@ -12,6 +11,7 @@ import { errorMessage } from "../../lib/serverFieldErrors";
 import { TrainingWithdrawSchema, type TrainingRecordView } from "../../../../shared/schemas/training";
 import { ReasonField } from "../people/ReasonField";
 import { useWithdrawTrainingMutation } from "./mutations";
+import { FormActions } from "../../components/FormActions";
 
 type FormValues = z.input<typeof TrainingWithdrawSchema>;
 const FIELDS = ["reason", "password"] as const;
@@ -57,14 +57,7 @@ export function WithdrawTrainingForm({ record, onDone, onCancel }: { record: Tra
       <SchemaField id={passwordId} label="Your password" error={passwordError}>
         <TextInput id={passwordId} type="password" autoComplete="current-password" invalid={Boolean(passwordError)} aria-describedby={describedBy(passwordId, undefined, schemaMessage(passwordError))} {...register("password")} />
       </SchemaField>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" variant="danger" busy={withdraw.isPending}>
-          Sign: training withdrawn
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Sign: training withdrawn" busy={withdraw.isPending} variant="danger" onCancel={onCancel} />
     </form>
   );
 }

@@ -1,6 +1,5 @@
 import { useForm, useWatch, type Control } from "react-hook-form";
 import { ApiError } from "../../api/client";
-import { Button } from "../../components/Button";
 import { Caution } from "../../components/Caution";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
@@ -14,6 +13,7 @@ import { ReasonField } from "../people/ReasonField";
 import { useCreateVesselMutation, useUpdateVesselMutation } from "./mutations";
 import { formatNumber } from "./quantityFormat";
 import { EMPTY_VESSEL, vesselErrorPath, vesselResolver, vesselToForm, type VesselFormOutput, type VesselFormValues } from "./vesselFormValues";
+import { FormActions } from "../../components/FormActions";
 
 const NUMBER = { valueAsNumber: true } as const;
 const TAG_HINT = "As painted on the vessel, e.g. R-101.";
@@ -114,14 +114,7 @@ export function VesselForm({ vessel, onDone, onCancel }: { vessel?: VesselView; 
         <QuantityInput id={id("bore")} label="Piston bore area" hint="Leave empty if the volume is not read from a piston." units={AREA_UNITS} error={quantityError("boreArea")} value={register("boreArea.value", NUMBER)} unit={register("boreArea.unit")} />
       </div>
       {editing && <ReasonField id={id("reason")} error={schemaMessage(errors.reason?.message)} registration={register("reason")} />}
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={current.isPending}>
-          {editing ? "Save changes" : "Register vessel"}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel={editing ? "Save changes" : "Register vessel"} busy={current.isPending} onCancel={onCancel} />
     </form>
   );
 }

@@ -1,13 +1,13 @@
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { Button } from "../../components/Button";
 import { Notice } from "../../components/Notice";
 import { schemaMessage } from "../../components/SchemaField";
 import { errorMessage } from "../../lib/serverFieldErrors";
 import { VesselStatusSchema, type VesselView } from "../../../../shared/schemas/vessels";
 import { ReasonField } from "../people/ReasonField";
 import { useChangeVesselStatusMutation } from "./mutations";
+import { FormActions } from "../../components/FormActions";
 
 type StatusValues = z.input<typeof VesselStatusSchema>;
 
@@ -37,14 +37,7 @@ export function VesselStatusForm({ vessel, onDone, onCancel }: { vessel: VesselV
       </p>
       <div aria-live="assertive">{change.error && <Notice tone="error">{errorMessage(change.error)}</Notice>}</div>
       <ReasonField id="vessel-status-reason" error={schemaMessage(errors.reason?.message)} registration={register("reason")} />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" variant={next === "out-of-service" ? "danger" : "primary"} busy={change.isPending}>
-          {next === "out-of-service" ? "Take out of service" : "Return to service"}
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel={next === "out-of-service" ? "Take out of service" : "Return to service"} busy={change.isPending} variant={next === "out-of-service" ? "danger" : "primary"} onCancel={onCancel} />
     </form>
   );
 }
