@@ -5,6 +5,7 @@ import { buildPlannedBatch } from "../../factories.js";
 import { BatchDriver, demoEntries, firstOrderCsv } from "../../support/batchDriver.js";
 import { auditEvents, batches, mailOutbox, people as peopleTable, stepEntries } from "../../../server/db/schema.js";
 import type { Role } from "../../../shared/schemas/roles.js";
+import { listenForChanges } from "../../support/liveListener.js";
 
 let t: TestApp;
 let d: BatchDriver;
@@ -262,10 +263,7 @@ describe("the trace, attachments and samples", () => {
     expect((await clients.op.post(`/api/batches/00000000-0000-4000-8000-000000000000/samples`, body)).status).toBe(404);
     await chargeAndRun(batch.id);
     expect((await clients.op.post(`/api/batches/${batch.id}/samples`, { ...body, fileId: "00000000-0000-4000-8000-000000000000" })).body.error.field).toBe("fileId");
-    const listener = await t.database.pool.connect();
-    const heard: string[] = [];
-    listener.on("notification", (m) => heard.push(m.payload ?? ""));
-    await listener.query("listen isobatch_changes");
+    const { heard, stop } = await listenForChanges(t.database.pool);
     try {
       const res = await clients.op.post(`/api/batches/${batch.id}/samples`, body);
       expect(res.status).toBe(201);
@@ -275,7 +273,7 @@ describe("the trace, attachments and samples", () => {
       await expect.poll(() => heard).toContainEqual(JSON.stringify({ kind: "batch", id: batch.id }));
       expect((await clients.op.get(`/api/batches/${batch.id}`)).body.samples).toHaveLength(1);
     } finally {
-      listener.release();
+      stop();
     }
   });
 

@@ -9,6 +9,7 @@ import { mailOutbox, signatures, trainingRecords } from "../../../server/db/sche
 import { DEMO_MASTER_RECORD_DRAFT } from "../../../server/db/demoScenario.js";
 import type { Role } from "../../../shared/schemas/roles.js";
 import type { TrainingRecordView } from "../../../shared/schemas/training.js";
+import { listenForChanges } from "../../support/liveListener.js";
 
 let t: TestApp;
 let d: BatchDriver;
@@ -51,10 +52,7 @@ describe("training records", () => {
   it("announces recorded and withdrawn training on the live feed, naming the trainee", async () => {
     const mr = await buildApprovedMasterRecord(t.database.db);
     const { person } = await signedIn(["operator"]);
-    const listener = await t.database.pool.connect();
-    const heard: string[] = [];
-    listener.on("notification", (m) => heard.push(m.payload ?? ""));
-    await listener.query("listen isobatch_changes");
+    const { heard, stop } = await listenForChanges(t.database.pool);
     try {
       const record = await recorded(person.id, mr.id);
       const change = JSON.stringify({ kind: "training", id: person.id });
@@ -62,7 +60,7 @@ describe("training records", () => {
       expect((await d.clients.sup.post(`/api/training/${record.id}/withdraw`, { reason: "recorded on the wrong version", password: d.people.sup.password })).status).toBe(200);
       await expect.poll(() => heard.filter((h) => h === change).length).toBe(2);
     } finally {
-      listener.release();
+      stop();
     }
   });
 
