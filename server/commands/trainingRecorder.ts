@@ -6,7 +6,7 @@ import { announce } from "../services/live.js";
 import { confirmSigner, recordSignature } from "./signatureRecorder.js";
 import type { CheckCredentials } from "./credentialChecker.js";
 import type { Notifier } from "./notifier.js";
-import { trainingStatusOn, utcDay } from "./trainingStatus.js";
+import { trainingStatusOn, utcDay } from "../../shared/execution/trainingStatus.js";
 import { conflict, HttpError, notFound } from "../http/errors.js";
 import type { SignedInPerson } from "../policies/access.js";
 import { presentTrainingRows } from "./trainingViews.js";

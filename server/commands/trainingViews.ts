@@ -1,7 +1,7 @@
 import { asc, eq, inArray } from "drizzle-orm";
 import type { DbOrTx } from "../db/client.js";
 import { masterRecords, masterRecordVersions, people, trainingRecords } from "../db/schema.js";
-import { trainingStatusOn, utcDay } from "./trainingStatus.js";
+import { trainingStatusOn, utcDay } from "../../shared/execution/trainingStatus.js";
 import type { TrainingRecordView } from "../../shared/schemas/training.js";
 
 type TrainingRow = typeof trainingRecords.$inferSelect;

@@ -4,7 +4,7 @@ import { masterRecords, masterRecordVersions, people, trainingRecords } from "./
 import type { CheckCredentials } from "../commands/credentialChecker.js";
 import type { Notifier } from "../commands/notifier.js";
 import { createTrainingRecorder } from "../commands/trainingRecorder.js";
-import { utcDay } from "../commands/trainingStatus.js";
+import { utcDay } from "../../shared/execution/trainingStatus.js";
 import { toSignedInPerson } from "../http/session.js";
 import { DEMO_PASSWORD } from "./seed.js";
 import { DEMO_MASTER_RECORD, DEMO_TRAINING } from "./demoScenario.js";

@@ -7,7 +7,7 @@ import { idParam } from "../../http/params.js";
 import { HttpError } from "../../http/errors.js";
 import { people, trainingRecords } from "../../db/schema.js";
 import { createTrainingRecorder } from "../../commands/trainingRecorder.js";
-import { utcDay } from "../../commands/trainingStatus.js";
+import { utcDay } from "../../../shared/execution/trainingStatus.js";
 import { presentTrainingRows } from "../../commands/trainingViews.js";
 import { TrainingListQuerySchema, TrainingRecordSchema, TrainingWithdrawSchema, type TrainingListView } from "../../../shared/schemas/training.js";
 import type { Role } from "../../../shared/schemas/roles.js";

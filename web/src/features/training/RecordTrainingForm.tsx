@@ -13,11 +13,12 @@ import { errorMessage } from "../../lib/serverFieldErrors";
 import { TrainingRecordSchema, type TraineeChoice, type TrainingRecordView } from "../../../../shared/schemas/training";
 import { masterRecordListQueryOptions } from "../masterRecords/queries";
 import { useRecordTrainingMutation } from "./mutations";
+import { utcDay } from "../../../../shared/execution/trainingStatus";
 import { FormActions } from "../../components/FormActions";
 
 type FormValues = z.input<typeof TrainingRecordSchema>;
 const FIELDS = ["personId", "masterRecordVersionId", "trainedOn", "validUntil", "note", "password"] as const;
-const todayUtc = () => new Date().toISOString().slice(0, 10);
+const todayUtc = () => utcDay(new Date());
 
 /** Records one person's training on one approved master-record version, signed with the recorder's password. */
 export function RecordTrainingForm({ people, selfId, onRecorded, onCancel }: { people: TraineeChoice[]; selfId: string; onRecorded: (record: TrainingRecordView) => void; onCancel: () => void }) {

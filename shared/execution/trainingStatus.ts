@@ -1,4 +1,4 @@
-import type { TrainingStatus } from "../../shared/schemas/training.js";
+import type { TrainingStatus } from "../schemas/training.js";
 
 /** The calendar day of `now` in UTC, as YYYY-MM-DD: the day training dates are judged on. */
 export const utcDay = (now: Date): string => now.toISOString().slice(0, 10);
