@@ -57,6 +57,8 @@ export function levenbergMarquardt(
   const damped = new Float64Array(p * p);
   for (let iteration = 1; iteration <= maxIterations; iteration++) {
     if (ssr === 0) return finish(params, ssr, iteration - 1, true, jtj, "exact fit");
+    // A parameter the prediction does not depend on here cannot be fitted from here (no step would be "small enough" honestly).
+    for (let j = 0; j < p; j++) if (!(jtj[j * p + j] > 0)) return finish(params, ssr, iteration - 1, false, jtj, "the prediction does not change with the parameters here");
     let accepted = false;
     let smallStep = false;
     while (!accepted) {

@@ -70,7 +70,7 @@ function bounds(fitOrder: boolean): { lower: number[]; upper: number[] } {
 
 /** [k] or [k, n] to start from: estimated, then, for many points, fitted to a thinned copy. */
 function startingParams({ t, V, setup, fitOrder }: VolumeProblem): number[] {
-  const k0 = setup.initialK ?? estimateInitialK(t, V, setup);
+  const k0 = offThePlateau(t, V, setup, setup.initialK ?? estimateInitialK(t, V, setup));
   const start = fitOrder ? [k0, setup.order] : [k0];
   if (t.length <= THIN_ABOVE) return start;
   const coarse = thinPoints(t, V, THIN_TARGET);
@@ -164,6 +164,22 @@ function estimateInitialK(t: Float64Array, V: Float64Array, setup: VolumeFitOpti
   if (!(k1 > 0) || !Number.isFinite(k1)) k1 = tEnd > 0 ? 1 / tEnd : 1;
   if (setup.order === 1) return k1;
   return k1 / Math.pow(setup.cA0 as number, setup.order - 1);
+}
+
+/**
+ * A start so fast that every point is past full conversion gives a prediction that no longer
+ * depends on k, and no fit can move from it: halve k until some point does depend on it.
+ */
+function offThePlateau(t: Float64Array, V: Float64Array, setup: VolumeFitOptions, k0: number): number {
+  const probe = createVolumeModel({ ...thinPoints(t, V, THIN_TARGET), V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0, order: setup.order, fitOrder: false });
+  const jtj = new Float64Array(1);
+  const jtr = new Float64Array(1);
+  let k = k0;
+  for (let halvings = 0; halvings < 60; halvings++) {
+    if (!Number.isFinite(probe.accumulate(Float64Array.of(k), jtj, jtr)) || jtj[0] > 0) return k;
+    k /= 2;
+  }
+  return k0;
 }
 
 function emptyResult(order: number, fitOrder: boolean, points: number, excluded: number, warnings: string[]): FitResult {

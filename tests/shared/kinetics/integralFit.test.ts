@@ -43,6 +43,15 @@ describe("nonlinear fit on volumes", () => {
     );
   });
 
+  it("starts from a k slow enough to matter when its first guess puts every point past full conversion", () => {
+    // Found by the property above: zero order, εA = 2, 12 points of which 3 are short of full conversion.
+    const k = kFor(0, 0.0016087795461018524);
+    const fit = fitVolumes(syntheticTrace(0, k, 2, 12, 1500), { order: 0, V0, epsilonA: 2, cA0: CA0 });
+    expect(fit.points).toBe(3);
+    expect(fit.converged).toBe(true);
+    expect(Math.abs(fit.k / k - 1)).toBeLessThan(1e-6);
+  });
+
   it("fits k and n together on a noise-free order-1.3 trace", () => {
     const k = kFor(1.3, 8e-4);
     const fit = fitVolumes(syntheticTrace(1.3, k, 0.7, 300, 3000), { order: 1, fitOrder: true, V0, epsilonA: 0.7, cA0: CA0 });

@@ -46,3 +46,33 @@ describe("Levenberg–Marquardt on NIST StRD Misra1a", () => {
     expect(relative(Math.sqrt(variance * inverse[3]), 7.2668688436e-6)).toBeLessThan(1e-6);
   });
 });
+
+describe("Levenberg–Marquardt where the prediction does not depend on a parameter", () => {
+  it("reports no convergence instead of calling the start a solution", () => {
+    // y = min(b·x, 1) at b large: every point is on the cap, so the Jacobian is zero (common practice: a flat objective has no least-squares step).
+    const xs = [1, 2, 3];
+    const flat = {
+      parameterCount: 1,
+      pointCount: xs.length,
+      accumulate(params: Float64Array, jtj: Float64Array | null, jtr: Float64Array | null) {
+        let ssr = 0;
+        if (jtj) jtj[0] = 0;
+        if (jtr) jtr[0] = 0;
+        for (const xi of xs) {
+          const capped = params[0] * xi >= 1;
+          const r = 0.2 * xi - (capped ? 1 : params[0] * xi);
+          ssr += r * r;
+          if (!capped && jtj && jtr) {
+            jtj[0] += xi * xi;
+            jtr[0] += xi * r;
+          }
+        }
+        return ssr;
+      },
+    };
+    const result = levenbergMarquardt(flat, { initial: [5] });
+    expect(result.converged).toBe(false);
+    expect(result.message).toMatch(/does not change/);
+    expect(levenbergMarquardt(flat, { initial: [0.3] }).params[0]).toBeCloseTo(0.2, 9);
+  });
+});
