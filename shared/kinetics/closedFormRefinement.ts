@@ -1,4 +1,5 @@
-import { closedFormPass, type PassSetup, type PassSums } from "./closedFormPasses.js";
+import { closedFormPass, type PassSums, type PointGuard } from "./closedFormPasses.js";
+import { ClosedFormPassRunner } from "./closedFormPassRunner.js";
 import { thinPoints } from "./traceSelection.js";
 
 /** The data and charge for refining k at a closed-form order. */
@@ -10,6 +11,11 @@ export interface ClosedFormData {
   epsilonA: number;
   /** mol/L; needed unless the order is 1. */
   cA0?: number;
+  /**
+   * Limits every point must meet when the points have not been selected yet: the first pass
+   * checks them and the refinement gives up ("points need selection") at the first that fails.
+   */
+  guard?: PointGuard;
 }
 
 export interface ClosedFormSolution {
@@ -27,7 +33,7 @@ export interface ClosedFormSolution {
 
 /** Why the refinement handed over to Levenberg–Marquardt, with the last k and the one tried. */
 export interface ClosedFormGiveUp {
-  outcome: "no finite prediction" | "k would not stay positive" | "residual sum rose" | "too many steps";
+  outcome: "points need selection" | "no finite prediction" | "k would not stay positive" | "residual sum rose" | "too many steps";
   k: number;
   triedK: number;
 }
@@ -49,31 +55,27 @@ const ROUNDING_ALLOWANCE = 1e-12;
  * caller falls back to Levenberg–Marquardt.
  */
 export function refineClosedForm(data: ClosedFormData, initialK: number, stepTolerance = 1e-10): ClosedFormSolution | ClosedFormGiveUp {
-  const cFactor = data.order === 1 ? 1 : Math.pow(data.cA0 ?? Number.NaN, data.order - 1);
-  const kFactor = data.V0 * data.epsilonA * cFactor;
-  const { order, t, V, V0, epsilonA } = data;
-  // One object shape for every pass keeps the pass loops monomorphic (a second shape made them 2–3× slower).
-  const setupAt = (k: number, times = t, volumes = V): PassSetup => ({ order, t: times, V: volumes, V0, epsilonA, scale: k * cFactor, kFactor });
+  const passes = new ClosedFormPassRunner(data);
   const sums: PassSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
   const giveUp = (outcome: ClosedFormGiveUp["outcome"], k: number, triedK: number): ClosedFormGiveUp => ({ outcome, k, triedK });
-  if (!(initialK > 0) || !Number.isFinite(kFactor)) return giveUp("no finite prediction", initialK, initialK);
-  closedFormPass(setupAt(initialK), null, sums);
+  if (!(initialK > 0) || !passes.usable) return giveUp("no finite prediction", initialK, initialK);
+  if (!passes.first(initialK, sums)) return giveUp("points need selection", initialK, initialK);
   if (!usable(sums)) return giveUp("no finite prediction", initialK, initialK);
   const residuals = new Float64Array(data.t.length);
   let k = initialK;
   let ssr = sums.ssr;
   let step = sums.jtr / sums.jtj;
   let residualsAtK = false;
-  const bend = stepBend(data, setupAt, initialK);
+  const bend = stepBend(data, passes, initialK);
   for (let steps = 0; steps <= MAX_STEPS; steps++) {
     if (Math.abs(step) <= stepTolerance * k) {
-      if (!residualsAtK) closedFormPass(setupAt(k), residuals, sums);
+      if (!residualsAtK) passes.withResiduals(k, residuals, sums);
       return { outcome: "converged", k, residuals, ssr: sums.ssr, sst: sums.sst, jtj: sums.jtj, steps };
     }
     if (steps === MAX_STEPS) break;
     const next = k + step - bentPart(bend, step);
     if (!(next > 0)) return giveUp("k would not stay positive", k, next);
-    closedFormPass(setupAt(next), residuals, sums);
+    passes.withResiduals(next, residuals, sums);
     if (!usable(sums)) return giveUp("no finite prediction", k, next);
     if (!(sums.ssr <= ssr * (1 + ROUNDING_ALLOWANCE))) return giveUp("residual sum rose", k, next);
     k = next;
@@ -94,11 +96,11 @@ const BEND_DELTA = 1e-3;
  * coefficient, ¼·d ln(ΣJ²)/dk, depends on the times only, so a thinned copy estimates it. With it
  * subtracted, a step from 1e−5 away on a noise-free trace landed 2e−15 off instead of 6e−11.
  */
-function stepBend(data: ClosedFormData, setupAt: (k: number, t: Float64Array, V: Float64Array) => PassSetup, k: number): number {
+function stepBend(data: ClosedFormData, passes: ClosedFormPassRunner, k: number): number {
   const coarse = thinPoints(data.t, data.V, BEND_POINTS);
   const sums: PassSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
   const jtjAt = (kk: number) => {
-    closedFormPass(setupAt(kk, coarse.t, coarse.V), null, sums);
+    closedFormPass(passes.setupAt(kk, coarse.t, coarse.V), null, sums);
     return sums.jtj;
   };
   const bend = (0.25 * Math.log(jtjAt(k * (1 + BEND_DELTA)) / jtjAt(k * (1 - BEND_DELTA)))) / (2 * BEND_DELTA * k);

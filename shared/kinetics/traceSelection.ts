@@ -28,33 +28,10 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules): SelectedPo
   // One pass straight into arrays sized for every point; the result views the part filled.
   const t = new Float64Array(n);
   const V = new Float64Array(n);
-  const tIn = trace.t;
-  const vIn = trace.V;
-  const scale = epsilonA * V0;
-  let kept = 0;
-  let pastFull = 0;
-  let pastCap = 0;
-  let invalid = 0;
-  for (let i = 0; i < n; i++) {
-    const ti = tIn[i];
-    const vi = vIn[i];
-    if (!Number.isFinite(ti) || !Number.isFinite(vi) || ti < 0) {
-      invalid++;
-      continue;
-    }
-    const X = (vi - V0) / scale;
-    if (!(X < 1)) {
-      if (Number.isNaN(X)) invalid++;
-      else pastFull++;
-      continue;
-    }
-    if (cap !== undefined && X > cap) {
-      pastCap++;
-      continue;
-    }
-    t[kept] = ti;
-    V[kept++] = vi;
-  }
+  const counts = new SelectionCounts();
+  if (trace.t instanceof Float64Array && trace.V instanceof Float64Array) sortTypedPoints(trace.t, trace.V, n, rules, t, V, counts);
+  else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
+  const { kept, pastFull, pastCap, invalid } = counts;
   const warnings: string[] = [];
   if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
   if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
@@ -73,15 +50,93 @@ const MIN_QUICK_EPSILON = 1e-4;
 const LARGEST = 1.7976931348623157e308;
 
 /**
- * One quick read of the trace: true when every point passes the rules with room to spare, so the
- * per-point bookkeeping is not needed. A point near a limit sends the caller to the exact rules.
+ * Open limits on V within which a point with 0 ≤ t < ∞ passes the rules with room to spare, so
+ * that no per-point bookkeeping is needed; undefined when no such quick test is safe. A point
+ * outside them may still be usable: the exact rules decide.
  */
-function allClearlyUsable(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules): boolean {
+export function clearVolumeLimits(rules: SelectionRules): { lowV: number; highV: number } | undefined {
   const { V0, epsilonA } = rules;
   // XA < limit read as a bound on V: XA = (V − V0)/(εA·V0) rises with V when εA > 0.
   const bound = V0 + (Math.min(1, rules.maxConversion ?? 1) - CLEAR_MARGIN) * epsilonA * V0;
-  if (!(Number.isFinite(bound) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return false;
-  return epsilonA > 0 ? allWithin(t, V, n, -LARGEST, bound) : allWithin(t, V, n, bound, LARGEST);
+  if (!(Number.isFinite(bound) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
+  return epsilonA > 0 ? { lowV: -LARGEST, highV: bound } : { lowV: bound, highV: LARGEST };
+}
+
+/** How the points were sorted so far. */
+class SelectionCounts {
+  kept = 0;
+  pastFull = 0;
+  pastCap = 0;
+  invalid = 0;
+}
+
+/**
+ * sortPoint for every point of typed arrays: points clearly inside the usable range, or clearly
+ * past full conversion, are decided by comparisons alone; only those near a limit (or invalid)
+ * take the exact rule.
+ */
+function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
+  const { lowV: keepLow, highV: keepHigh } = clearVolumeLimits(rules) ?? NONE;
+  const { lowV: pastLow, highV: pastHigh } = clearlyPastFull(rules) ?? NONE;
+  let kept = 0;
+  let pastFull = 0;
+  for (let i = 0; i < n; i++) {
+    const ti = tIn[i];
+    const vi = vIn[i];
+    if (ti >= 0 && ti <= LARGEST) {
+      if (vi > keepLow && vi < keepHigh) {
+        t[kept] = ti;
+        V[kept++] = vi;
+        continue;
+      }
+      if (vi >= pastLow && vi <= pastHigh) {
+        pastFull++;
+        continue;
+      }
+    }
+    counts.kept = kept;
+    sortPoint(ti, vi, rules, t, V, counts);
+    kept = counts.kept;
+  }
+  counts.kept = kept;
+  counts.pastFull += pastFull;
+}
+
+/** The exact rule for one point: kept (appended to t and V), or counted as why it was not. */
+function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
+  if (!Number.isFinite(ti) || !Number.isFinite(vi) || ti < 0) {
+    counts.invalid++;
+    return;
+  }
+  const X = (vi - rules.V0) / (rules.epsilonA * rules.V0);
+  if (!(X < 1)) {
+    if (Number.isNaN(X)) counts.invalid++;
+    else counts.pastFull++;
+    return;
+  }
+  if (rules.maxConversion !== undefined && X > rules.maxConversion) {
+    counts.pastCap++;
+    return;
+  }
+  t[counts.kept] = ti;
+  V[counts.kept++] = vi;
+}
+
+/** Closed limits on V, finite, within which a point is past full conversion with room to spare. */
+function clearlyPastFull(rules: SelectionRules): { lowV: number; highV: number } | undefined {
+  const { V0, epsilonA } = rules;
+  const bound = V0 + (1 + CLEAR_MARGIN) * epsilonA * V0;
+  if (!(Number.isFinite(bound) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
+  return epsilonA > 0 ? { lowV: bound, highV: LARGEST } : { lowV: -LARGEST, highV: bound };
+}
+
+/** Limits no value meets, for when a quick test is not safe. */
+const NONE = { lowV: Number.NaN, highV: Number.NaN };
+
+/** One quick read of the trace: true when every point is within the clear limits. */
+function allClearlyUsable(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules): boolean {
+  const limits = clearVolumeLimits(rules);
+  return limits !== undefined && allWithin(t, V, n, limits.lowV, limits.highV);
 }
 
 /** True when every 0 ≤ t[i] < ∞ and lowV < V[i] < highV (false for any NaN). */

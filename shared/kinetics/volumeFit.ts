@@ -1,11 +1,11 @@
 import { rateConstantUnit, type FitResult } from "./fitResult.js";
 import { assertFittable, type ChargeSetup } from "./fitSetup.js";
-import { refineClosedForm } from "./closedFormRefinement.js";
+import { refineClosedForm, type ClosedFormSolution } from "./closedFormRefinement.js";
 import { levenbergMarquardt } from "./levenbergMarquardt.js";
 import { residualsAt } from "./residuals.js";
 import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
-import { selectFitPoints, thinPoints } from "./traceSelection.js";
+import { clearVolumeLimits, selectFitPoints, thinPoints } from "./traceSelection.js";
 import { createVolumeModel } from "./volumeModel.js";
 
 export interface VolumeFitOptions extends ChargeSetup {
@@ -27,6 +27,39 @@ const STEP_TOLERANCE = 1e-10;
 export function fitVolumes(trace: Trace, options: VolumeFitOptions): FitResult {
   const fitOrder = options.fitOrder ?? false;
   assertFittable(options, options.order, fitOrder);
+  return fitClearTrace(trace, options, fitOrder) ?? fitSelectedPoints(trace, options, fitOrder);
+}
+
+/**
+ * Many points at a fixed closed-form order: start from a thinned copy and refine on every point,
+ * the first full pass also checking that each point passes the selection rules with room to
+ * spare, which saves a separate read of the trace. Undefined when a point needs the exact rules.
+ */
+function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolean): FitResult | undefined {
+  const order = options.order;
+  if (fitOrder || !(order === 0 || order === 1 || order === 2)) return undefined;
+  if (!(trace.t instanceof Float64Array && trace.V instanceof Float64Array)) return undefined;
+  const n = Math.min(trace.t.length, trace.V.length);
+  const rules = { V0: options.V0, epsilonA: options.epsilonA };
+  const guard = clearVolumeLimits(rules);
+  if (n <= THIN_ABOVE || guard === undefined) return undefined;
+  const t = trace.t.subarray(0, n);
+  const V = trace.V.subarray(0, n);
+  const coarse = selectFitPoints(thinPoints(t, V, THIN_TARGET), rules);
+  // A thinned copy that already loses points means the full pass would stop partway.
+  if (coarse.excluded > 0 || coarse.t.length < 2) return undefined;
+  const start = startingParams(coarse, options, false);
+  const { V0, epsilonA, cA0 } = options;
+  const refined = refineClosedForm({ order, t, V, V0, epsilonA, cA0, guard }, start[0], STEP_TOLERANCE);
+  if (refined.outcome === "points need selection") return undefined;
+  // Every point passed, so the selection would keep them all.
+  const warnings: string[] = [];
+  const solution = refined.outcome === "converged" ? closedFormSolution(refined) : fitByLevenbergMarquardt({ t, V, setup: options, fitOrder }, start, warnings);
+  return summarise(solution, options, fitOrder, 0, warnings);
+}
+
+/** The fit on the points the selection rules keep. */
+function fitSelectedPoints(trace: Trace, options: VolumeFitOptions, fitOrder: boolean): FitResult {
   const selected = selectFitPoints(trace, { V0: options.V0, epsilonA: options.epsilonA });
   const warnings = [...selected.warnings];
   const parameterCount = fitOrder ? 2 : 1;
@@ -37,7 +70,7 @@ export function fitVolumes(trace: Trace, options: VolumeFitOptions): FitResult {
   }
   if (n < 5) warnings.push(`too few points: only ${n} usable.`);
   const problem: VolumeProblem = { t: selected.t, V: selected.V, setup: options, fitOrder };
-  const start = startingParams(problem);
+  const start = n > THIN_ABOVE ? startingParams(thinPoints(problem.t, problem.V, THIN_TARGET), options, fitOrder) : firstGuess(problem.t, problem.V, options, fitOrder);
   const solution = (n > THIN_ABOVE ? refineDirectly(problem, start) : undefined) ?? fitByLevenbergMarquardt(problem, start, warnings);
   return summarise(solution, options, fitOrder, selected.excluded, warnings);
 }
@@ -68,13 +101,16 @@ function bounds(fitOrder: boolean): { lower: number[]; upper: number[] } {
     : { lower: [0], upper: [Number.POSITIVE_INFINITY] };
 }
 
-/** [k] or [k, n] to start from: estimated, then, for many points, fitted to a thinned copy. */
-function startingParams({ t, V, setup, fitOrder }: VolumeProblem): number[] {
+/** [k] or [k, n] to start from, estimated from the trace. */
+function firstGuess(t: Float64Array, V: Float64Array, setup: VolumeFitOptions, fitOrder: boolean): number[] {
   const k0 = offThePlateau(t, V, setup, setup.initialK ?? estimateInitialK(t, V, setup));
-  const start = fitOrder ? [k0, setup.order] : [k0];
-  if (t.length <= THIN_ABOVE) return start;
-  const coarse = thinPoints(t, V, THIN_TARGET);
-  const model = createVolumeModel({ ...coarse, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0, order: setup.order, fitOrder });
+  return fitOrder ? [k0, setup.order] : [k0];
+}
+
+/** For many points: the first guess fitted to a thinned copy of the usable points. */
+function startingParams(coarse: { t: Float64Array; V: Float64Array }, setup: VolumeFitOptions, fitOrder: boolean): number[] {
+  const start = firstGuess(coarse.t, coarse.V, setup, fitOrder);
+  const model = createVolumeModel({ t: coarse.t, V: coarse.V, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0, order: setup.order, fitOrder });
   const rough = levenbergMarquardt(model, { initial: start, ...bounds(fitOrder), stepTolerance: 1e-8 });
   return rough.params.every(Number.isFinite) ? Array.from(rough.params) : start;
 }
@@ -87,8 +123,10 @@ function refineDirectly({ t, V, setup, fitOrder }: VolumeProblem, start: number[
   const order = setup.order;
   if (fitOrder || !(order === 0 || order === 1 || order === 2)) return undefined;
   const fast = refineClosedForm({ order, t, V, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0 }, start[0], STEP_TOLERANCE);
-  if (fast.outcome !== "converged") return undefined;
-  const { k, residuals, ssr, sst, jtj, steps } = fast;
+  return fast.outcome === "converged" ? closedFormSolution(fast) : undefined;
+}
+
+function closedFormSolution({ k, residuals, ssr, sst, jtj, steps }: ClosedFormSolution): VolumeSolution {
   return { params: [k], residuals, ssr, sst, inverse: Float64Array.of(1 / jtj), converged: true, iterations: steps };
 }
 

@@ -1,17 +1,7 @@
-import { createRequire } from "node:module";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startTestApp, Client, type TestApp } from "../../support/testApp.js";
 import { buildPerson } from "../../factories.js";
-
-// odex ships TypeScript sources that do not pass this project's strict checks, so it is loaded
-// untyped and given the small interface used here (as in tests/shared/kinetics/prediction.test.ts).
-interface OdexSolver {
-  absoluteTolerance: number;
-  relativeTolerance: number;
-  maxSteps: number;
-  solve(f: (x: number, y: number[]) => number[], x0: number, y0: number[], x1: number): { y: number[] };
-}
-const { Solver } = createRequire(import.meta.url)("odex") as { Solver: new (n: number) => OdexSolver };
+import { odexSolve } from "../../support/odexReference.js";
 
 const UPLOAD_LIMIT = 64 * 1024;
 let t: TestApp;
@@ -40,20 +30,7 @@ const TIMES = Array.from({ length: 601 }, (_, i) => i * 5);
  * integrated by odex (an independent ODE solver), not by the library under test.
  */
 function odexFirstOrderVolumes(k: number, times: number[]): number[] {
-  const solver = new Solver(1);
-  solver.absoluteTolerance = 1e-14;
-  solver.relativeTolerance = 1e-13;
-  solver.maxSteps = 1e6;
-  const rhs = (_t: number, y: number[]) => [k * (1 - y[0])];
-  const out: number[] = [];
-  let at = 0;
-  let X = 0;
-  for (const target of times) {
-    if (target > at) X = solver.solve(rhs, at, [X], target).y[0];
-    at = target;
-    out.push(V0 * (1 + EPSILON * X));
-  }
-  return out;
+  return odexSolve((_t, X) => k * (1 - X), 0, times).map((X) => V0 * (1 + EPSILON * X));
 }
 
 const traceCsv = (volumes: number[], extra = "") =>

@@ -1,4 +1,3 @@
-import { createRequire } from "node:module";
 import fc from "fast-check";
 import { levenbergMarquardt as mlLevenbergMarquardt } from "ml-levenberg-marquardt";
 import { describe, expect, it } from "vitest";
@@ -14,16 +13,8 @@ import {
 } from "../../../shared/kinetics/index";
 import { closedFormPass } from "../../../shared/kinetics/closedFormPasses";
 import { refineClosedForm } from "../../../shared/kinetics/closedFormRefinement";
-
-// odex ships TypeScript sources that do not pass this project's strict checks, so it is loaded
-// untyped and given the small interface used here.
-interface OdexSolver {
-  absoluteTolerance: number;
-  relativeTolerance: number;
-  maxSteps: number;
-  solve(f: (x: number, y: number[]) => number[], x0: number, y0: number[], x1: number): { y: number[] };
-}
-const { Solver } = createRequire(import.meta.url)("odex") as { Solver: new (n: number) => OdexSolver };
+import { ClosedFormPassRunner } from "../../../shared/kinetics/closedFormPassRunner";
+import { odexConversion } from "../../support/odexReference";
 
 const V0 = 2;
 const CA0 = initialConcentrationGas(0.7, 2e5, 523.15);
@@ -45,27 +36,6 @@ function noisyTrace(order: number, epsilonA: number, k: number, duration: number
   return { t, V };
 }
 
-/** Conversion from the rate law dX/dt = k·cA0^(n−1)·(1 − X)^n/(1 + εA·X)^(n−1), by odex. */
-function odexConversion(order: number, scale: number, epsilonA: number, times: number[]): number[] {
-  const solver = new Solver(1);
-  solver.absoluteTolerance = 1e-14;
-  solver.relativeTolerance = 1e-13;
-  solver.maxSteps = 1e6;
-  const rhs = (_t: number, y: number[]) => {
-    const X = Math.min(y[0], 1);
-    return [(scale * Math.pow(1 - X, order)) / Math.pow(1 + epsilonA * X, order - 1)];
-  };
-  const out: number[] = [];
-  let t = 0;
-  let X = 0;
-  for (const target of times) {
-    if (target > t) X = solver.solve(rhs, t, [X], target).y[0];
-    t = target;
-    out.push(X);
-  }
-  return out;
-}
-
 /**
  * The full Levenberg–Marquardt fit on the same usable points, started 0.1 % away and run to a
  * step of 1e−13·k so that its own stopping error stays well below the 1e−10 compared.
@@ -77,13 +47,14 @@ function fullLevenbergMarquardt(trace: Trace, order: number, epsilonA: number, s
   return { lm, ...residualsAt(t, V, { order, k: lm.params[0], epsilonA, V0, cA0: CA0 }) };
 }
 
-/** Residuals of one fused pass at k over the usable points. */
+/** Residuals at k over the usable points from the fused passes, chosen as the refinement chooses them. */
 function passResiduals(trace: Trace, order: 0 | 1 | 2, epsilonA: number, k: number): Float64Array {
   const { t, V } = selectFitPoints(trace, { V0, epsilonA });
   const residuals = new Float64Array(t.length);
   const sums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
-  const cFactor = order === 1 ? 1 : Math.pow(CA0, order - 1);
-  closedFormPass({ order, t, V, V0, epsilonA, scale: k * cFactor, kFactor: V0 * epsilonA * cFactor }, residuals, sums);
+  const passes = new ClosedFormPassRunner({ order, t, V, V0, epsilonA, cA0: CA0 });
+  expect(passes.first(k, sums)).toBe(true);
+  passes.withResiduals(k, residuals, sums);
   return residuals;
 }
 

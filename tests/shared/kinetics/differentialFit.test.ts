@@ -1,36 +1,15 @@
-import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
 import { KineticsInputError, fitDifferential, smoothedDerivative } from "../../../shared/kinetics/index";
-
-// odex ships TypeScript sources that do not pass this project's strict checks, so it is loaded
-// untyped and given the small interface used here.
-interface OdexSolver {
-  absoluteTolerance: number;
-  relativeTolerance: number;
-  solve(f: (x: number, y: number[]) => number[], x0: number, y0: number[], x1: number): { y: number[] };
-}
-const { Solver } = createRequire(import.meta.url)("odex") as { Solver: new (n: number) => OdexSolver };
+import { odexConversion } from "../../support/odexReference";
 
 const V0 = 2;
 const CA0 = 0.0322;
 
 /** Volume trace from the rate law integrated by odex (independent ODE solver), uneven times. */
 function odexTrace(order: number, k: number, epsilonA: number) {
-  const solver = new Solver(1);
-  solver.absoluteTolerance = solver.relativeTolerance = 1e-13;
-  const rhs = (_t: number, y: number[]) => [(k * Math.pow(CA0, order - 1) * Math.pow(1 - y[0], order)) / Math.pow(1 + epsilonA * y[0], order - 1)];
-  const t: number[] = [];
-  const V: number[] = [];
-  let X = 0;
-  let last = 0;
-  for (let i = 0; i < 600; i++) {
-    const time = i * 5 + 1.5 * Math.sin(i);
-    if (time > last) X = solver.solve(rhs, last, [X], time).y[0];
-    last = Math.max(last, time);
-    t.push(time);
-    V.push(V0 * (1 + epsilonA * X));
-  }
-  return { t, V };
+  const t = Array.from({ length: 600 }, (_, i) => i * 5 + 1.5 * Math.sin(i));
+  const X = odexConversion(order, k * Math.pow(CA0, order - 1), epsilonA, t);
+  return { t, V: X.map((x) => V0 * (1 + epsilonA * x)) };
 }
 
 describe("differential method", () => {

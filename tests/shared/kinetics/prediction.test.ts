@@ -1,4 +1,3 @@
-import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
 import {
   GeneralOrderKernel,
@@ -8,38 +7,7 @@ import {
   quinticHermite,
   reducedTimeAtConversion,
 } from "../../../shared/kinetics/index";
-
-// odex ships TypeScript sources that do not pass this project's strict checks, so it is loaded
-// untyped and given the small interface used here.
-interface OdexSolver {
-  absoluteTolerance: number;
-  relativeTolerance: number;
-  maxSteps: number;
-  solve(f: (x: number, y: number[]) => number[], x0: number, y0: number[], x1: number): { y: number[] };
-}
-const { Solver } = createRequire(import.meta.url)("odex") as { Solver: new (n: number) => OdexSolver };
-
-/** Conversion from the rate law dX/dt = k·cA0^(n−1)·(1 − X)^n/(1 + εA·X)^(n−1), by odex. */
-function odexConversion(order: number, k: number, epsilonA: number, cA0: number, times: number[]): number[] {
-  const solver = new Solver(1);
-  solver.absoluteTolerance = 1e-14;
-  solver.relativeTolerance = 1e-13;
-  solver.maxSteps = 1e6;
-  const scale = k * Math.pow(cA0, order - 1);
-  const rhs = (_t: number, y: number[]) => {
-    const X = Math.min(y[0], 1);
-    return [(scale * Math.pow(1 - X, order)) / Math.pow(1 + epsilonA * X, order - 1)];
-  };
-  const out: number[] = [];
-  let t = 0;
-  let X = 0;
-  for (const target of times) {
-    if (target > t) X = solver.solve(rhs, t, [X], target).y[0];
-    t = target;
-    out.push(X);
-  }
-  return out;
-}
+import { odexConversion } from "../../support/odexReference";
 
 const CA0 = 0.0322;
 const EPSILONS = [-0.5, 0, 0.7, 2];
@@ -53,7 +21,7 @@ describe("closed-form conversion against odex (independent ODE solver)", () => {
         // Dense times, then a sparse tail: both the series-from-anchor and the anchored evaluation run.
         const times = [...Array.from({ length: 2000 }, (_, i) => i * 0.25), ...Array.from({ length: 300 }, (_, i) => 500 + i * 8), 2900, 3000];
         const ours = predictConversion({ order, k, epsilonA, V0: 1, cA0: CA0 }, times);
-        const reference = odexConversion(order, k, epsilonA, CA0, times);
+        const reference = odexConversion(order, k * Math.pow(CA0, order - 1), epsilonA, times);
         for (let i = 1; i < times.length; i++) {
           expect(Math.abs(ours[i] - reference[i]) / reference[i]).toBeLessThan(1e-8);
         }
@@ -69,7 +37,7 @@ describe("general-order route against odex", () => {
         const k = 6e-4 / Math.pow(CA0, order - 1);
         const times = [0.5, 10, 100, 400, 800, 1200, 1600, 2000];
         const ours = predictConversion({ order, k, epsilonA, V0: 1, cA0: CA0 }, times);
-        const reference = odexConversion(order, k, epsilonA, CA0, times);
+        const reference = odexConversion(order, k * Math.pow(CA0, order - 1), epsilonA, times);
         for (let i = 0; i < times.length; i++) {
           expect(Math.abs(ours[i] - reference[i]) / reference[i]).toBeLessThan(1e-8);
         }

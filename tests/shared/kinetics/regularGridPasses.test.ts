@@ -1,0 +1,132 @@
+import { describe, expect, it } from "vitest";
+import { fitVolumes, initialConcentrationGas, predictVolume } from "../../../shared/kinetics/index";
+import { closedFormPass, OPEN_GUARD } from "../../../shared/kinetics/closedFormPasses";
+import { gridPass, likelyGrid } from "../../../shared/kinetics/regularGridPasses";
+import { odexConversion } from "../../support/odexReference";
+
+const V0 = 2;
+const CA0 = initialConcentrationGas(0.7, 2e5, 523.15);
+const POINTS = 30_000;
+const scaleFor = (order: number, k: number) => k * Math.pow(CA0, order - 1);
+const setupFor = (order: 0 | 1, t: Float64Array, V: Float64Array, epsilonA: number, k: number) => ({
+  order, t, V, V0, epsilonA, scale: scaleFor(order, k), kFactor: V0 * epsilonA * Math.pow(CA0, order - 1),
+});
+const evenTimes = (points: number, duration: number) => Float64Array.from({ length: points }, (_, i) => (i * duration) / (points - 1));
+
+/** Invented trace: the model's volumes plus deterministic noise of about sigma L. */
+function noisyVolumes(order: number, epsilonA: number, k: number, t: Float64Array, sigma: number): Float64Array {
+  const V = predictVolume({ order, k, epsilonA, V0, cA0: CA0 }, t);
+  let seed = 7;
+  const uniform = () => (seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 4294967296;
+  for (let i = 0; i < V.length; i++) V[i] += 2 * sigma * (uniform() + uniform() + uniform() - 1.5);
+  return V;
+}
+
+const CASES = ([0, 1] as const).flatMap((order) => [-0.5, 0.3, 0.7, 2].map((epsilonA) => [order, epsilonA] as const));
+
+describe("passes on a regular time grid", () => {
+  it.each(CASES)("order %i, εA = %f: model volumes match odex (independent ODE solver)", (order, epsilonA) => {
+    const k = order === 0 ? 1.6e-4 * CA0 : 1.2e-3;
+    const t = evenTimes(POINTS, 3000);
+    const V = new Float64Array(POINTS);
+    const grid = likelyGrid(t, scaleFor(order, k));
+    expect(grid).toBeDefined();
+    const residuals = new Float64Array(POINTS);
+    const sums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    // With V = 0 the residuals are minus the model volumes.
+    gridPass(setupFor(order, t, V, epsilonA, k), grid!, residuals, sums, OPEN_GUARD);
+    const sample = Array.from({ length: 150 }, (_, j) => Math.floor((j * (POINTS - 1)) / 149));
+    const reference = odexConversion(order, 1, epsilonA, sample.map((i) => scaleFor(order, k) * t[i]));
+    for (let j = 1; j < sample.length; j++) {
+      const ours = (-residuals[sample[j]] - V0) / (epsilonA * V0);
+      expect(Math.abs(ours - reference[j]) / reference[j]).toBeLessThan(1e-8);
+    }
+  });
+
+  it.each(CASES)("order %i, εA = %f: residuals and sums equal the general pass's at the same k", (order, epsilonA) => {
+    const k = order === 0 ? 6e-4 * CA0 : 6e-4;
+    const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
+    const V = noisyVolumes(order, epsilonA, k, t, 1e-3);
+    const setup = setupFor(order, t, V, epsilonA, k);
+    const grid = likelyGrid(t, setup.scale)!;
+    const gridSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    const plainSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    expect(gridPass(setup, grid, null, gridSums, OPEN_GUARD)).toBe("complete");
+    const checkedJtr = gridSums.jtr;
+    const onGrid = new Float64Array(POINTS);
+    const general = new Float64Array(POINTS);
+    gridPass(setup, grid, onGrid, gridSums, OPEN_GUARD);
+    closedFormPass(setup, general, plainSums);
+    let largest = 0;
+    for (let i = 0; i < POINTS; i++) largest = Math.max(largest, Math.abs(onGrid[i] - general[i]));
+    // Common practice: both carry an exponential by products; they differ only by rounding.
+    expect(largest).toBeLessThan(1e-13);
+    const relative = (a: number, b: number) => Math.abs(a / b - 1);
+    expect(relative(gridSums.ssr, plainSums.ssr)).toBeLessThan(1e-10);
+    expect(relative(gridSums.sst, plainSums.sst)).toBeLessThan(1e-12);
+    expect(relative(gridSums.jtj, plainSums.jtj)).toBeLessThan(1e-10);
+    const scaleOfJtr = 1e-9 * Math.sqrt(plainSums.jtj * plainSums.ssr);
+    expect(Math.abs(gridSums.jtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
+    expect(Math.abs(checkedJtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
+  });
+
+  it("the checked pass stops at a point off the grid or outside the guard, and says which", () => {
+    const k = 6e-4;
+    const t = evenTimes(POINTS, 3600);
+    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
+    const grid = likelyGrid(t, k)!;
+    const sums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    const moved = Float64Array.from(t);
+    moved[12_345] += 1e-6;
+    expect(gridPass(setupFor(1, moved, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("off grid");
+    expect(gridPass(setupFor(1, t, V, 0.7, k), grid, null, sums, { lowV: -Infinity, highV: V[20_000] })).toBe("outside guard");
+    expect(gridPass(setupFor(1, t, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("complete");
+  });
+
+  it("does not take times with jitter for a grid", () => {
+    const t = evenTimes(POINTS, 3600);
+    for (let i = 1; i < POINTS - 1; i++) t[i] += 0.01 * Math.sin(i);
+    expect(likelyGrid(t, 6e-4)).toBeUndefined();
+  });
+});
+
+describe("fitVolumes on many points takes the same k by every route", () => {
+  // Float64Array traces take the route that proves the points in its first pass (on the grid
+  // where the times allow); plain arrays take the exact selection first. Both must agree.
+  const k = 6e-4;
+  const relative = (a: number, b: number) => Math.abs(a / b - 1);
+  const plainCopy = (x: Float64Array) => Array.from(x);
+
+  it("on a regular grid", () => {
+    const t = evenTimes(POINTS, 3600);
+    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
+    const fast = fitVolumes({ t, V }, { order: 1, V0, epsilonA: 0.7 });
+    const exact = fitVolumes({ t: plainCopy(t), V: plainCopy(V) }, { order: 1, V0, epsilonA: 0.7 });
+    expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+    expect(relative(fast.residualRms, exact.residualRms)).toBeLessThan(1e-9);
+    expect(fast.points).toBe(POINTS);
+  });
+
+  it("with one point off the grid late in the trace", () => {
+    const t = evenTimes(POINTS, 3600);
+    t[POINTS - 10] += 0.05;
+    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
+    const fast = fitVolumes({ t, V }, { order: 1, V0, epsilonA: 0.7 });
+    const exact = fitVolumes({ t: plainCopy(t), V: plainCopy(V) }, { order: 1, V0, epsilonA: 0.7 });
+    expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+  });
+
+  it.each([0, 1, 2] as const)("order %i with irregular times and a few unusable points", (order) => {
+    const kk = k / Math.pow(CA0, order - 1);
+    const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
+    for (let i = 1; i < POINTS - 1; i++) t[i] += 0.02 * Math.sin(i * 1.7);
+    const V = noisyVolumes(order, 0.7, kk, t, 1e-3);
+    V[500] = Number.NaN;
+    V[20_000] = V0 * 1.8;
+    const fast = fitVolumes({ t, V }, { order, V0, epsilonA: 0.7, cA0: CA0 });
+    const exact = fitVolumes({ t: plainCopy(t), V: plainCopy(V) }, { order, V0, epsilonA: 0.7, cA0: CA0 });
+    expect(fast.points).toBe(POINTS - 2);
+    expect(exact.points).toBe(POINTS - 2);
+    expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+  });
+});
