@@ -293,7 +293,8 @@ function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums): boolea
       reach = anchor.reach;
       d = 0;
     }
-    const m = c0 + d * (c1 + d * (c2 + d * (c3 + d * (c4 + d * (c5 + d * c6)))));
+    const d2 = d * d;
+    const m = c0 + d * c1 + d2 * (c2 + d * c3 + d2 * (c4 + d * c5 + d2 * c6));
     const r = v - m;
     const u = full - m;
     const g = (u * u * ti) / m;
@@ -329,7 +330,8 @@ function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out: LoopSu
       reach = anchor.reach;
       d = 0;
     }
-    const m = c0 + d * (c1 + d * (c2 + d * (c3 + d * (c4 + d * (c5 + d * c6)))));
+    const d2 = d * d;
+    const m = c0 + d * c1 + d2 * (c2 + d * c3 + d2 * (c4 + d * c5 + d2 * c6));
     const r = v - m;
     const u = full - m;
     const g = (u * u * ti) / m;

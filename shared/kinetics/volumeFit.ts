@@ -20,6 +20,8 @@ const MAX_FITTED_ORDER = 6;
 /** Above this many points a thinned copy is fitted first to get close cheaply. */
 const THIN_ABOVE = 20_000;
 const THIN_TARGET = 4_000;
+/** Marquardt's first λ from a start fitted to a thinned copy: the first step is nearly Gauss–Newton. */
+const FITTED_START_DAMPING = 1e-6;
 /** Converged when a full Gauss–Newton step is at most this fraction of k (as in the LM fit). */
 const STEP_TOLERANCE = 1e-10;
 
@@ -54,7 +56,7 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   if (refined.outcome === "points need selection") return undefined;
   // Every point passed, so the selection would keep them all.
   const warnings: string[] = [];
-  const solution = refined.outcome === "converged" ? closedFormSolution(refined) : fitByLevenbergMarquardt({ t, V, setup: options, fitOrder }, start, warnings);
+  const solution = refined.outcome === "converged" ? closedFormSolution(refined) : fitByLevenbergMarquardt({ t, V, setup: options, fitOrder }, start, warnings, true);
   return summarise(solution, options, fitOrder, 0, warnings);
 }
 
@@ -71,7 +73,7 @@ function fitSelectedPoints(trace: Trace, options: VolumeFitOptions, fitOrder: bo
   if (n < 5) warnings.push(`too few points: only ${n} usable.`);
   const problem: VolumeProblem = { t: selected.t, V: selected.V, setup: options, fitOrder };
   const start = n > THIN_ABOVE ? startingParams(thinPoints(problem.t, problem.V, THIN_TARGET), options, fitOrder) : firstGuess(problem.t, problem.V, options, fitOrder);
-  const solution = (n > THIN_ABOVE ? refineDirectly(problem, start) : undefined) ?? fitByLevenbergMarquardt(problem, start, warnings);
+  const solution = (n > THIN_ABOVE ? refineDirectly(problem, start) : undefined) ?? fitByLevenbergMarquardt(problem, start, warnings, n > THIN_ABOVE);
   return summarise(solution, options, fitOrder, selected.excluded, warnings);
 }
 
@@ -130,11 +132,11 @@ function closedFormSolution({ k, residuals, ssr, sst, jtj, steps }: ClosedFormSo
   return { params: [k], residuals, ssr, sst, inverse: Float64Array.of(1 / jtj), converged: true, iterations: steps };
 }
 
-/** Levenberg–Marquardt over all points, then the residuals at the solution. */
-function fitByLevenbergMarquardt({ t, V, setup, fitOrder }: VolumeProblem, start: number[], warnings: string[]): VolumeSolution {
+/** Levenberg–Marquardt over all points, then the residuals at the solution; `fittedStart` when the start was fitted to a thinned copy. */
+function fitByLevenbergMarquardt({ t, V, setup, fitOrder }: VolumeProblem, start: number[], warnings: string[], fittedStart: boolean): VolumeSolution {
   const { V0, epsilonA, cA0 } = setup;
   const model = createVolumeModel({ t, V, V0, epsilonA, cA0, order: setup.order, fitOrder });
-  const lm = levenbergMarquardt(model, { initial: start, ...bounds(fitOrder), stepTolerance: STEP_TOLERANCE });
+  const lm = levenbergMarquardt(model, { initial: start, ...bounds(fitOrder), stepTolerance: STEP_TOLERANCE, initialDamping: fittedStart ? FITTED_START_DAMPING : undefined });
   if (!lm.converged) warnings.push(`did not converge: ${lm.message}.`);
   const order = fitOrder ? lm.params[1] : setup.order;
   const { residuals, ssr, sst } = residualsAt(t, V, { order, k: lm.params[0], epsilonA, V0, cA0 });

@@ -38,6 +38,29 @@ describe("Levenberg–Marquardt on NIST StRD Misra1a", () => {
     expect(relative(result.residualSumSquares, CERTIFIED_RSS)).toBeLessThan(1e-8);
   });
 
+  it.each([
+    ["NIST start 1", [500, 1e-4]],
+    ["NIST start 2", [250, 5e-4]],
+  ])("still reaches the certified b1 and b2 from %s when the first λ is small (a start trusted too much)", (_name, initial) => {
+    const result = levenbergMarquardt(createFirstOrderRiseModel(x, y), { initial, initialDamping: 1e-6 });
+    expect(result.converged).toBe(true);
+    expect(relative(result.params[0], CERTIFIED_B1)).toBeLessThan(5e-7);
+    expect(relative(result.params[1], CERTIFIED_B2)).toBeLessThan(5e-7);
+  });
+
+  it("takes fewer passes over the data from a close start when the first λ is small", () => {
+    let passes = 0;
+    const model = createFirstOrderRiseModel(x, y);
+    const counted = { ...model, accumulate: (...args: Parameters<typeof model.accumulate>) => (passes++, model.accumulate(...args)) };
+    const close = [CERTIFIED_B1 * (1 + 1e-4), CERTIFIED_B2 * (1 - 1e-4)];
+    levenbergMarquardt(counted, { initial: close });
+    const usual = passes;
+    passes = 0;
+    const result = levenbergMarquardt(counted, { initial: close, initialDamping: 1e-6 });
+    expect(relative(result.params[1], CERTIFIED_B2)).toBeLessThan(5e-7);
+    expect(passes).toBeLessThan(usual);
+  });
+
   it("gives the certified standard deviations of b1 and b2 (NIST StRD Misra1a certified: 2.7070075241E+00, 7.2668688436E−06; from memory)", () => {
     const result = levenbergMarquardt(createFirstOrderRiseModel(x, y), { initial: [250, 5e-4] });
     const variance = result.residualSumSquares / (x.length - 2);
