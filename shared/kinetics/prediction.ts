@@ -1,5 +1,7 @@
 import { KineticsInputError } from "./kineticsInputError.js";
 import { BLOCK_POINTS, createConversionKernel, reducedTimeScale } from "./kernelFactory.js";
+import { gridVolumes, likelyGrid } from "./regularGridPasses.js";
+import { secondOrderVolumes } from "./secondOrderPasses.js";
 
 /** A rate model at fixed conditions: order n, k in (mol/L)^(1−n)/s, εA, V0 (L), cA0 (mol/L). */
 export interface RateModelAtConditions {
@@ -13,28 +15,54 @@ export interface RateModelAtConditions {
 
 /** Conversion XA at each time (s) from the model. */
 export function predictConversion(model: RateModelAtConditions, t: ArrayLike<number>): Float64Array {
+  const X = new Float64Array(t.length);
+  fillConversion(model, checkedScale(model), t, 0, X);
+  return X;
+}
+
+/** Above this many points, predicted volumes on a regular time grid take the grid loop. */
+const GRID_ABOVE = 1000;
+
+/** Gas volume (L) at each time (s) from the model; constant V0 when εA = 0. */
+export function predictVolume(model: RateModelAtConditions, t: ArrayLike<number>): Float64Array {
+  if (model.epsilonA === 0) return new Float64Array(t.length).fill(model.V0);
+  const scale = checkedScale(model);
+  const V = new Float64Array(t.length);
+  const order = model.order;
+  if (order === 2) {
+    secondOrderVolumes(model.V0, model.epsilonA, scale, t, V);
+    return V;
+  }
+  let done = 0;
+  if ((order === 0 || order === 1) && t instanceof Float64Array && t.length > GRID_ABOVE) {
+    const grid = likelyGrid(t, scale);
+    if (grid !== undefined) done = gridVolumes(order, scale, model.V0, model.epsilonA, t, grid, V);
+  }
+  if (done === t.length) return V;
+  fillConversion(model, scale, t, done, V);
+  const amplitude = model.V0 * model.epsilonA;
+  for (let i = done; i < V.length; i++) V[i] = model.V0 + amplitude * V[i];
+  return V;
+}
+
+/** k·cA0^(n−1), or a KineticsInputError naming what is missing. */
+function checkedScale(model: RateModelAtConditions): number {
   const scale = reducedTimeScale(model.k, model.order, model.cA0);
   if (!Number.isFinite(scale)) {
     throw new KineticsInputError("cA0", `An initial concentration cA0 > 0 is needed for order ${model.order}.`);
   }
   if (!(model.epsilonA > -1)) throw new KineticsInputError("epsilonA", `εA must exceed −1 (got ${model.epsilonA}).`);
+  return scale;
+}
+
+/** Writes the conversion at t[start…] into X[start…]. */
+function fillConversion(model: RateModelAtConditions, scale: number, t: ArrayLike<number>, start: number, X: Float64Array): void {
   let tMax = 0;
-  for (let i = 0; i < t.length; i++) if (t[i] > tMax) tMax = t[i];
+  for (let i = start; i < t.length; i++) if (t[i] > tMax) tMax = t[i];
   const kernel = createConversionKernel(model.order, model.epsilonA, scale * tMax);
-  const X = new Float64Array(t.length);
   const rate = new Float64Array(BLOCK_POINTS);
-  for (let from = 0; from < t.length; from += BLOCK_POINTS) {
+  for (let from = start; from < t.length; from += BLOCK_POINTS) {
     const to = Math.min(t.length, from + BLOCK_POINTS);
     kernel.fill(scale, t, from, to, X.subarray(from, to), rate, null);
   }
-  return X;
-}
-
-/** Gas volume (L) at each time (s) from the model; constant V0 when εA = 0. */
-export function predictVolume(model: RateModelAtConditions, t: ArrayLike<number>): Float64Array {
-  if (model.epsilonA === 0) return new Float64Array(t.length).fill(model.V0);
-  const X = predictConversion(model, t);
-  const amplitude = model.V0 * model.epsilonA;
-  for (let i = 0; i < X.length; i++) X[i] = model.V0 + amplitude * X[i];
-  return X;
 }

@@ -112,6 +112,23 @@ describe("volume prediction", () => {
     }
   });
 
+  it.each([-0.9, -0.5, 0.7, 5])("second-order volumes (anchored polynomial) equal V0(1 + εA·X) from the conversion route, εA = %f", (epsilonA) => {
+    const model = { order: 2, k: 0.5, epsilonA, V0: 2, cA0: 1 };
+    // Ascending and dense, then sparse, then out of order: every way of placing anchors.
+    const times = [...Array.from({ length: 4000 }, (_, i) => i * 5e-3), ...Array.from({ length: 200 }, (_, i) => 20 + i * 0.7), 3, 150, 0.01, 90];
+    const volumes = predictVolume(model, times);
+    const X = predictConversion(model, times);
+    for (let i = 0; i < times.length; i++) {
+      expect(Math.abs(volumes[i] - model.V0 * (1 + epsilonA * X[i]))).toBeLessThan(1e-12);
+    }
+    // The implicit closed form (1 + εA)·X/(1 − X) + εA·ln(1 − X) = τ (common practice), from the volumes.
+    for (const i of [10, 500, 3999, 4100, 4203]) {
+      const Xi = (volumes[i] - model.V0) / (model.V0 * epsilonA);
+      const implicit = ((1 + epsilonA) * Xi) / (1 - Xi) + epsilonA * Math.log(1 - Xi);
+      expect(Math.abs(implicit - 0.5 * times[i]) / (0.5 * times[i])).toBeLessThan(1e-9);
+    }
+  });
+
   it("second-order Newton solve stays robust over εA in [−0.9, 5]", () => {
     for (const epsilonA of [-0.9, -0.3, 0, 1, 5]) {
       const taus = [1e-6, 0.1, 1, 10, 1e3, 1e6];

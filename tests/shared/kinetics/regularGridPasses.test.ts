@@ -90,6 +90,33 @@ describe("passes on a regular time grid", () => {
   });
 });
 
+describe("predicted volumes on a regular time grid", () => {
+  it.each(CASES)("order %i, εA = %f: equal the general kernels' (plain-array times) and follow odex", (order, epsilonA) => {
+    // Reduced time up to 3.6, or 0.48 at zero order, which reaches full conversion soon after.
+    const k = order === 0 ? 1.6e-4 * CA0 : 1.2e-3;
+    const t = evenTimes(POINTS, 3000);
+    // One time moved off the grid part way: the points from there on take the general kernels.
+    const moved = Float64Array.from(t);
+    moved[20_000] += 1e-3;
+    const model = { order, k, epsilonA, V0, cA0: CA0 };
+    for (const times of [t, moved]) {
+      const onGrid = predictVolume(model, times);
+      const general = predictVolume(model, Array.from(times));
+      let largest = 0;
+      for (let i = 0; i < POINTS; i++) largest = Math.max(largest, Math.abs(onGrid[i] - general[i]));
+      // Common practice: the same model by two evaluations differs only by rounding.
+      expect(largest).toBeLessThan(1e-13);
+    }
+    const sample = Array.from({ length: 120 }, (_, j) => Math.floor((j * (POINTS - 1)) / 119));
+    const reference = odexConversion(order, scaleFor(order, k), epsilonA, sample.map((i) => t[i]));
+    const volumes = predictVolume(model, t);
+    for (let j = 1; j < sample.length; j++) {
+      const X = (volumes[sample[j]] - V0) / (epsilonA * V0);
+      expect(Math.abs(X - reference[j]) / reference[j]).toBeLessThan(1e-8);
+    }
+  });
+});
+
 describe("fitVolumes on many points takes the same k by every route", () => {
   // Float64Array traces take the route that proves the points in its first pass (on the grid
   // where the times allow); plain arrays take the exact selection first. Both must agree.
