@@ -37,31 +37,45 @@ export function linearisedIntegral(trace: Trace, options: LinearisedOptions): Li
   const selected = selectFitPoints(trace, { V0, epsilonA, maxConversion: cap });
   const warnings = [...selected.warnings];
   const n = selected.t.length;
-  const x = new Float64Array(n);
   const y = new Float64Array(n);
-  const V = new Float64Array(n);
+  linearise(selected.V, { V0, epsilonA, order, cA0 }, y);
+  const slopePerK = order === 2 ? cA0 : 1;
+  // Usually every value is finite and the selected arrays serve as they are.
   let kept = 0;
-  for (let i = 0; i < n; i++) {
-    const X = (selected.V[i] - V0) / (epsilonA * V0);
-    let value: number;
-    if (order === 0) value = (cA0 / epsilonA) * Math.log1p(epsilonA * X);
-    else if (order === 1) value = -Math.log1p(-X);
-    else if (order === 2) value = ((1 + epsilonA) * X) / (1 - X) + epsilonA * Math.log1p(-X);
-    else value = reducedTimeAtConversion(X, order, epsilonA) * Math.pow(cA0, 1 - order);
-    if (!Number.isFinite(value)) continue;
-    x[kept] = selected.t[i];
-    y[kept] = value;
-    V[kept++] = selected.V[i];
+  for (let i = 0; i < n; i++) if (Number.isFinite(y[i])) kept++;
+  if (kept === n) return { x: selected.t, y, V: selected.V, slopePerK, excluded: selected.excluded, warnings };
+  const x = new Float64Array(kept);
+  const V = new Float64Array(kept);
+  const finite = new Float64Array(kept);
+  for (let i = 0, j = 0; i < n; i++) {
+    if (!Number.isFinite(y[i])) continue;
+    x[j] = selected.t[i];
+    V[j] = selected.V[i];
+    finite[j++] = y[i];
   }
-  if (kept < n) warnings.push(`${n - kept} point(s) with a non-finite linearised value excluded.`);
-  return {
-    x: x.subarray(0, kept),
-    y: y.subarray(0, kept),
-    V: V.subarray(0, kept),
-    slopePerK: order === 2 ? cA0 : 1,
-    excluded: selected.excluded + (n - kept),
-    warnings,
-  };
+  warnings.push(`${n - kept} point(s) with a non-finite linearised value excluded.`);
+  return { x, y: finite, V, slopePerK, excluded: selected.excluded + (n - kept), warnings };
+}
+
+/** The linearised quantity of each volume into y, one loop per order. */
+function linearise(volumes: Float64Array, model: { V0: number; epsilonA: number; order: number; cA0: number }, y: Float64Array): void {
+  const { V0, epsilonA, order, cA0 } = model;
+  const n = volumes.length;
+  const perVolume = 1 / (epsilonA * V0);
+  if (order === 0) {
+    const factor = cA0 / epsilonA;
+    for (let i = 0; i < n; i++) y[i] = factor * Math.log1p(epsilonA * ((volumes[i] - V0) * perVolume));
+  } else if (order === 1) {
+    for (let i = 0; i < n; i++) y[i] = -Math.log1p(-((volumes[i] - V0) * perVolume));
+  } else if (order === 2) {
+    for (let i = 0; i < n; i++) {
+      const X = (volumes[i] - V0) * perVolume;
+      y[i] = ((1 + epsilonA) * X) / (1 - X) + epsilonA * Math.log1p(-X);
+    }
+  } else {
+    const factor = Math.pow(cA0, 1 - order);
+    for (let i = 0; i < n; i++) y[i] = reducedTimeAtConversion((volumes[i] - V0) * perVolume, order, epsilonA) * factor;
+  }
 }
 
 /** k from the straight line through the origin of the linearised integral quantity against t. */
@@ -73,12 +87,14 @@ export function fitLinearised(trace: Trace, options: LinearisedOptions): FitResu
   const line = fitLineThroughOrigin(points.x, points.y);
   const k = line.slope / points.slopePerK;
   const kStdError = line.slopeStdError / points.slopePerK;
-  const predicted = n > 0 ? predictVolume({ order: options.order, k, epsilonA: options.epsilonA, V0: options.V0, cA0: options.cA0 }, points.x) : new Float64Array(0);
-  const residuals = new Float64Array(n);
+  // Observed minus predicted, written over the prediction.
+  const residuals = n > 0 ? predictVolume({ order: options.order, k, epsilonA: options.epsilonA, V0: options.V0, cA0: options.cA0 }, points.x) : new Float64Array(0);
+  const observed = points.V;
   let ssr = 0;
   for (let i = 0; i < n; i++) {
-    residuals[i] = points.V[i] - predicted[i];
-    ssr += residuals[i] * residuals[i];
+    const r = observed[i] - residuals[i];
+    residuals[i] = r;
+    ssr += r * r;
   }
   return {
     method: "linearised",

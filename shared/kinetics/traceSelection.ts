@@ -71,15 +71,17 @@ class SelectionCounts {
 }
 
 /**
- * sortPoint for every point of typed arrays: points clearly inside the usable range, or clearly
- * past full conversion, are decided by comparisons alone; only those near a limit (or invalid)
- * take the exact rule.
+ * sortPoint for every point of typed arrays: points clearly inside the usable range, clearly
+ * past full conversion or clearly past the cap are decided by comparisons alone; only those
+ * near a limit (or invalid) take the exact rule.
  */
 function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   const { lowV: keepLow, highV: keepHigh } = clearVolumeLimits(rules) ?? NONE;
   const { lowV: pastLow, highV: pastHigh } = clearlyPastFull(rules) ?? NONE;
+  const { lowV: capLow, highV: capHigh } = clearlyPastCap(rules) ?? NONE;
   let kept = 0;
   let pastFull = 0;
+  let pastCap = 0;
   for (let i = 0; i < n; i++) {
     const ti = tIn[i];
     const vi = vIn[i];
@@ -93,6 +95,10 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules:
         pastFull++;
         continue;
       }
+      if (vi > capLow && vi < capHigh) {
+        pastCap++;
+        continue;
+      }
     }
     counts.kept = kept;
     sortPoint(ti, vi, rules, t, V, counts);
@@ -100,6 +106,7 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules:
   }
   counts.kept = kept;
   counts.pastFull += pastFull;
+  counts.pastCap += pastCap;
 }
 
 /** The exact rule for one point: kept (appended to t and V), or counted as why it was not. */
@@ -128,6 +135,16 @@ function clearlyPastFull(rules: SelectionRules): { lowV: number; highV: number }
   const bound = V0 + (1 + CLEAR_MARGIN) * epsilonA * V0;
   if (!(Number.isFinite(bound) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
   return epsilonA > 0 ? { lowV: bound, highV: LARGEST } : { lowV: -LARGEST, highV: bound };
+}
+
+/** Open limits on V within which a point is above the conversion cap but short of full, with room to spare. */
+function clearlyPastCap(rules: SelectionRules): { lowV: number; highV: number } | undefined {
+  const { V0, epsilonA, maxConversion: cap } = rules;
+  if (cap === undefined || !(cap < 1)) return undefined;
+  const above = V0 + (cap + CLEAR_MARGIN) * epsilonA * V0;
+  const below = V0 + (1 - CLEAR_MARGIN) * epsilonA * V0;
+  if (!(Number.isFinite(above) && Number.isFinite(below) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
+  return epsilonA > 0 ? { lowV: above, highV: below } : { lowV: below, highV: above };
 }
 
 /** Limits no value meets, for when a quick test is not safe. */

@@ -90,16 +90,20 @@ describe("passes on a regular time grid", () => {
   });
 });
 
-describe("predicted volumes on a regular time grid", () => {
+describe("predicted volumes on many points (regular grid, then carried)", () => {
   it.each(CASES)("order %i, εA = %f: equal the general kernels' (plain-array times) and follow odex", (order, epsilonA) => {
     // Reduced time up to 3.6, or 0.48 at zero order, which reaches full conversion soon after.
     const k = order === 0 ? 1.6e-4 * CA0 : 1.2e-3;
     const t = evenTimes(POINTS, 3000);
-    // One time moved off the grid part way: the points from there on take the general kernels.
+    // One time moved off the grid part way: the points from there on carry the exponential along.
     const moved = Float64Array.from(t);
     moved[20_000] += 1e-3;
+    // Irregular times throughout, with a step back and a gap beyond the short series' reach.
+    const irregular = Float64Array.from(t, (ti, i) => ti + 0.03 * Math.sin(i * 0.9));
+    irregular[12_000] = irregular[11_990];
+    for (let i = 25_000; i < POINTS; i++) irregular[i] += 200;
     const model = { order, k, epsilonA, V0, cA0: CA0 };
-    for (const times of [t, moved]) {
+    for (const times of [t, moved, irregular]) {
       const onGrid = predictVolume(model, times);
       const general = predictVolume(model, Array.from(times));
       let largest = 0;
