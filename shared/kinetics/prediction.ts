@@ -1,6 +1,7 @@
 import { KineticsInputError } from "./kineticsInputError.js";
 import { BLOCK_POINTS, createConversionKernel, reducedTimeScale } from "./kernelFactory.js";
-import { gridVolumes, likelyGrid } from "./regularGridPasses.js";
+import { carriedVolumes, gridVolumes } from "./exponentialVolumes.js";
+import { likelyGrid } from "./regularGridPasses.js";
 import { secondOrderVolumes } from "./secondOrderPasses.js";
 
 /** A rate model at fixed conditions: order n, k in (mol/L)^(1−n)/s, εA, V0 (L), cA0 (mol/L). */
@@ -43,41 +44,6 @@ export function predictVolume(model: RateModelAtConditions, t: ArrayLike<number>
   const amplitude = model.V0 * model.epsilonA;
   for (let i = 0; i < V.length; i++) V[i] = model.V0 + amplitude * V[i];
   return V;
-}
-
-/** Largest step in the exponent served by the short series; its remainder is below 5e−18. */
-const STEP_REACH = 1e-4;
-/** Points between exact exponentials, bounding the rounding carried along. */
-const ANCHOR_EVERY = 128;
-
-/**
- * Volumes at orders 0 and 1 for t[start…], the exponential carried from point to point by
- * e^(±Δτ) from a short series while the times ascend in small steps, else taken afresh.
- */
-function carriedVolumes(order: 0 | 1, scale: number, V0: number, epsilonA: number, t: Float64Array, start: number, out: Float64Array): void {
-  const n = t.length;
-  const full = V0 * (1 + epsilonA);
-  // Order 1: V = full − c, c = V0·εA·e^(−τ); order 0: V = m = V0·e^(εA·τ), capped at full.
-  const rate = order === 1 ? -scale : epsilonA * scale;
-  const base = order === 1 ? V0 * epsilonA : V0;
-  const sign = order === 1 ? -1 : 1;
-  const offset = order === 1 ? full : 0;
-  const capped = order === 0;
-  const rising = epsilonA > 0;
-  for (let from = start; from < n; from += ANCHOR_EVERY) {
-    const to = Math.min(n, from + ANCHOR_EVERY);
-    let previous = t[from];
-    let m = base * Math.exp(rate * previous);
-    for (let i = from; i < to; i++) {
-      const ti = t[i];
-      const step = rate * (ti - previous);
-      if (ti >= previous && step <= STEP_REACH && step >= -STEP_REACH) m *= 1 + step * (1 + step * (0.5 + step * (1 / 6)));
-      else m = base * Math.exp(rate * ti);
-      previous = ti;
-      const v = offset + sign * m;
-      out[i] = capped && (rising ? v > full : v < full) ? full : v;
-    }
-  }
 }
 
 /** k·cA0^(n−1), or a KineticsInputError naming what is missing. */

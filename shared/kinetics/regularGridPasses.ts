@@ -213,39 +213,3 @@ function zeroOrderResiduals(s: PassSetup, grid: RegularGrid, residuals: Float64A
   }
   keep(out, ssr, gg, gr, sum, squares);
 }
-
-/**
- * Model volumes at orders 0 and 1 on the grid, written to `out` from the first point on, each
- * point's time checked against the grid. Returns how many were written: all of them, or up to
- * the first point off the grid (the caller computes the rest another way).
- */
-export function gridVolumes(order: 0 | 1, scale: number, V0: number, epsilonA: number, t: Float64Array, grid: RegularGrid, out: Float64Array): number {
-  const n = t.length;
-  const t0 = grid.t0 + 0;
-  const h = grid.h + 0;
-  const tolerance = GRID_TAU_TOLERANCE / scale;
-  const full = V0 * (1 + epsilonA);
-  // Order 1: V = full − c, c = V0·εA·e^(−τ); order 0: V = m = V0·e^(εA·τ), capped at full.
-  const rate = order === 1 ? -scale : epsilonA * scale;
-  const base = order === 1 ? V0 * epsilonA : V0;
-  const sign = order === 1 ? -1 : 1;
-  const offset = order === 1 ? full : 0;
-  const capped = order === 0;
-  const rising = epsilonA > 0;
-  const factor = Math.exp(rate * h);
-  for (let from = 0; from < n; from += ANCHOR_EVERY) {
-    const to = Math.min(n, from + ANCHOR_EVERY);
-    const anchor = t0 + from * h;
-    let m = base * Math.exp(rate * anchor);
-    let steps = 0;
-    for (let i = from; i < to; i++) {
-      const off = t[i] - (anchor + steps * h);
-      if (!(off <= tolerance && off >= -tolerance)) return i;
-      const v = offset + sign * m;
-      out[i] = capped && (rising ? v > full : v < full) ? full : v;
-      m *= factor;
-      steps++;
-    }
-  }
-  return n;
-}
