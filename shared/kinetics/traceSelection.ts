@@ -76,9 +76,13 @@ class SelectionCounts {
  * near a limit (or invalid) take the exact rule.
  */
 function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
-  const { lowV: keepLow, highV: keepHigh } = clearVolumeLimits(rules) ?? NONE;
-  const { lowV: pastLow, highV: pastHigh } = clearlyPastFull(rules) ?? NONE;
-  const { lowV: capLow, highV: capHigh } = clearlyPastCap(rules) ?? NONE;
+  const keep = clearVolumeLimits(rules) ?? NONE;
+  const past = clearlyPastFull(rules) ?? NONE;
+  const cap = clearlyPastCap(rules) ?? NONE;
+  // Plain doubles in locals (x + 0), so the loop does not re-read boxed numbers at every point.
+  const keepLow = keep.lowV + 0, keepHigh = keep.highV + 0;
+  const pastLow = past.lowV + 0, pastHigh = past.highV + 0;
+  const capLow = cap.lowV + 0, capHigh = cap.highV + 0;
   let kept = 0;
   let pastFull = 0;
   let pastCap = 0;
