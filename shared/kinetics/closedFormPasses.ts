@@ -130,11 +130,13 @@ function zeroOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums): boolean 
   const lowV = unboxed(guard.lowV);
   const highV = unboxed(guard.highV);
   let ssr = 0, gg = 0, gr = 0;
-  for (let from = 0; from < n; from += ANCHOR_EVERY) {
-    const to = Math.min(n, from + ANCHOR_EVERY);
-    let previousTau = scale * t[from];
+  let i = 0;
+  while (i < n) {
+    const to = Math.min(n, i + ANCHOR_EVERY);
+    let previousTau = scale * t[i];
     let model = V0 * Math.exp(eps * previousTau);
-    for (let i = from; i < to; i++) {
+    let flatFrom = Number.NaN;
+    for (; i < to; i++) {
       const ti = t[i];
       const v = V[i];
       if (!(ti >= 0 && ti <= LARGEST && v > lowV && v < highV)) return false;
@@ -144,12 +146,25 @@ function zeroOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums): boolean 
       else model = V0 * Math.exp(eps * tau);
       previousTau = tau;
       // Full conversion is where V0·G reaches V0(1 + εA), from below or, for εA < 0, from above.
-      const reacting = eps > 0 ? model < full : model > full;
-      const r = v - (reacting ? model : full);
-      const g = reacting ? eps * model * ti : 0;
+      if (eps > 0 ? model >= full : model <= full) {
+        flatFrom = ti;
+        break;
+      }
+      const r = v - model;
+      const g = eps * model * ti;
       ssr += r * r;
       gg += g * g;
       gr += g * r;
+    }
+    // Past full conversion the model is flat: while the times do not step back, a point adds
+    // only (V − full)² and nothing to the slope.
+    for (; i < n; i++) {
+      const ti = t[i];
+      const v = V[i];
+      if (!(ti >= flatFrom)) break;
+      if (!(ti <= LARGEST && v > lowV && v < highV)) return false;
+      const r = v - full;
+      ssr += r * r;
     }
   }
   return keep(out, ssr, gg, gr, 0, 0);
@@ -164,11 +179,13 @@ function zeroOrderResiduals(s: PassSetup, residuals: Float64Array, out: LoopSums
   const full = V0 * (1 + eps);
   const shift = n > 0 ? V[0] : 0;
   let ssr = 0, gg = 0, gr = 0, sum = 0, squares = 0;
-  for (let from = 0; from < n; from += ANCHOR_EVERY) {
-    const to = Math.min(n, from + ANCHOR_EVERY);
-    let previousTau = scale * t[from];
+  let i = 0;
+  while (i < n) {
+    const to = Math.min(n, i + ANCHOR_EVERY);
+    let previousTau = scale * t[i];
     let model = V0 * Math.exp(eps * previousTau);
-    for (let i = from; i < to; i++) {
+    let flatFrom = Number.NaN;
+    for (; i < to; i++) {
       const ti = t[i];
       const v = V[i];
       const tau = scale * ti;
@@ -176,13 +193,27 @@ function zeroOrderResiduals(s: PassSetup, residuals: Float64Array, out: LoopSums
       if (tau >= previousTau && step <= STEP_REACH && step >= -STEP_REACH) model *= expSmall(step);
       else model = V0 * Math.exp(eps * tau);
       previousTau = tau;
-      const reacting = eps > 0 ? model < full : model > full;
-      const r = v - (reacting ? model : full);
-      const g = reacting ? eps * model * ti : 0;
+      if (eps > 0 ? model >= full : model <= full) {
+        flatFrom = ti;
+        break;
+      }
+      const r = v - model;
+      const g = eps * model * ti;
       residuals[i] = r;
       ssr += r * r;
       gg += g * g;
       gr += g * r;
+      const d = v - shift;
+      sum += d;
+      squares += d * d;
+    }
+    for (; i < n; i++) {
+      const ti = t[i];
+      if (!(ti >= flatFrom)) break;
+      const v = V[i];
+      const r = v - full;
+      residuals[i] = r;
+      ssr += r * r;
       const d = v - shift;
       sum += d;
       squares += d * d;
