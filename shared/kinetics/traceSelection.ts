@@ -49,17 +49,31 @@ const MIN_QUICK_EPSILON = 1e-4;
 /** Largest finite double: `x <= LARGEST` is false for NaN and +∞. */
 const LARGEST = 1.7976931348623157e308;
 
+/** Open limits on V. */
+interface VolumeLimits {
+  lowV: number;
+  highV: number;
+}
+
 /**
- * Open limits on V within which a point with 0 ≤ t < ∞ passes the rules with room to spare, so
- * that no per-point bookkeeping is needed; undefined when no such quick test is safe. A point
- * outside them may still be usable: the exact rules decide.
+ * Open limits on V within which a point's conversion lies between lowX and highX with room to
+ * spare (±Infinity: no limit on that side), so comparisons alone decide it; undefined when no
+ * such quick test is safe. A point outside them is left to the exact rules.
  */
-export function clearVolumeLimits(rules: SelectionRules): { lowV: number; highV: number } | undefined {
+function clearlyBetween(rules: SelectionRules, lowX: number, highX: number): VolumeLimits | undefined {
   const { V0, epsilonA } = rules;
-  // XA < limit read as a bound on V: XA = (V − V0)/(εA·V0) rises with V when εA > 0.
-  const bound = V0 + (Math.min(1, rules.maxConversion ?? 1) - CLEAR_MARGIN) * epsilonA * V0;
-  if (!(Number.isFinite(bound) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
-  return epsilonA > 0 ? { lowV: -LARGEST, highV: bound } : { lowV: bound, highV: LARGEST };
+  if (!(Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
+  // XA = (V − V0)/(εA·V0) read as V; an unlimited side stays finite so that ±∞ in V is never clear.
+  const volumeAt = (X: number) => (Number.isFinite(X) ? V0 + X * epsilonA * V0 : X * epsilonA > 0 ? LARGEST : -LARGEST);
+  const a = volumeAt(lowX + CLEAR_MARGIN);
+  const b = volumeAt(highX - CLEAR_MARGIN);
+  if (!(Number.isFinite(a) && Number.isFinite(b))) return undefined;
+  return epsilonA > 0 ? { lowV: a, highV: b } : { lowV: b, highV: a };
+}
+
+/** The limits on V of points every rule keeps, with room to spare (0 ≤ t < ∞ checked besides). */
+export function clearVolumeLimits(rules: SelectionRules): VolumeLimits | undefined {
+  return clearlyBetween(rules, Number.NEGATIVE_INFINITY, Math.min(1, rules.maxConversion ?? 1));
 }
 
 /** How the points were sorted so far. */
@@ -76,13 +90,14 @@ class SelectionCounts {
  * near a limit (or invalid) take the exact rule.
  */
 function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
+  const cap = rules.maxConversion;
   const keep = clearVolumeLimits(rules) ?? NONE;
-  const past = clearlyPastFull(rules) ?? NONE;
-  const cap = clearlyPastCap(rules) ?? NONE;
+  const past = clearlyBetween(rules, 1, Number.POSITIVE_INFINITY) ?? NONE;
+  const capped = (cap !== undefined && cap < 1 ? clearlyBetween(rules, cap, 1) : undefined) ?? NONE;
   // Plain doubles in locals (x + 0), so the loop does not re-read boxed numbers at every point.
   const keepLow = keep.lowV + 0, keepHigh = keep.highV + 0;
   const pastLow = past.lowV + 0, pastHigh = past.highV + 0;
-  const capLow = cap.lowV + 0, capHigh = cap.highV + 0;
+  const capLow = capped.lowV + 0, capHigh = capped.highV + 0;
   let kept = 0;
   let pastFull = 0;
   let pastCap = 0;
@@ -95,7 +110,7 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules:
         V[kept++] = vi;
         continue;
       }
-      if (vi >= pastLow && vi <= pastHigh) {
+      if (vi > pastLow && vi < pastHigh) {
         pastFull++;
         continue;
       }
@@ -133,26 +148,8 @@ function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Arra
   V[counts.kept++] = vi;
 }
 
-/** Closed limits on V, finite, within which a point is past full conversion with room to spare. */
-function clearlyPastFull(rules: SelectionRules): { lowV: number; highV: number } | undefined {
-  const { V0, epsilonA } = rules;
-  const bound = V0 + (1 + CLEAR_MARGIN) * epsilonA * V0;
-  if (!(Number.isFinite(bound) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
-  return epsilonA > 0 ? { lowV: bound, highV: LARGEST } : { lowV: -LARGEST, highV: bound };
-}
-
-/** Open limits on V within which a point is above the conversion cap but short of full, with room to spare. */
-function clearlyPastCap(rules: SelectionRules): { lowV: number; highV: number } | undefined {
-  const { V0, epsilonA, maxConversion: cap } = rules;
-  if (cap === undefined || !(cap < 1)) return undefined;
-  const above = V0 + (cap + CLEAR_MARGIN) * epsilonA * V0;
-  const below = V0 + (1 - CLEAR_MARGIN) * epsilonA * V0;
-  if (!(Number.isFinite(above) && Number.isFinite(below) && Math.abs(epsilonA) >= MIN_QUICK_EPSILON)) return undefined;
-  return epsilonA > 0 ? { lowV: above, highV: below } : { lowV: below, highV: above };
-}
-
 /** Limits no value meets, for when a quick test is not safe. */
-const NONE = { lowV: Number.NaN, highV: Number.NaN };
+const NONE: VolumeLimits = { lowV: Number.NaN, highV: Number.NaN };
 
 /** One quick read of the trace: true when every point is within the clear limits. */
 function allClearlyUsable(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules): boolean {
