@@ -1,5 +1,7 @@
-import { closedFormPass, OPEN_GUARD, type PassSetup, type PassSums, type PointGuard } from "./closedFormPasses.js";
-import { gridPass, likelyGrid, type RegularGrid } from "./regularGridPasses.js";
+import { closedFormPass } from "./closedFormPasses.js";
+import { OPEN_GUARD, type PassSetup, type PassSums, type PointGuard } from "./passBasics.js";
+import { likelyGrid, type RegularGrid } from "./regularGrid.js";
+import { gridPass } from "./regularGridPasses.js";
 import type { ClosedFormData } from "./closedFormRefinement.js";
 
 /**

@@ -1,4 +1,5 @@
-import { closedFormPass, type PassSums, type PointGuard } from "./closedFormPasses.js";
+import { closedFormPass } from "./closedFormPasses.js";
+import type { PassSums, PointGuard } from "./passBasics.js";
 import { ClosedFormPassRunner } from "./closedFormPassRunner.js";
 import { thinPoints } from "./traceSelection.js";
 

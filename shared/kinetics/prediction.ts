@@ -1,7 +1,7 @@
 import { KineticsInputError } from "./kineticsInputError.js";
 import { BLOCK_POINTS, createConversionKernel, reducedTimeScale } from "./kernelFactory.js";
 import { carriedVolumes, gridVolumes } from "./exponentialVolumes.js";
-import { likelyGrid } from "./regularGridPasses.js";
+import { likelyGrid } from "./regularGrid.js";
 import { secondOrderVolumes } from "./secondOrderPasses.js";
 
 /** A rate model at fixed conditions: order n, k in (mol/L)^(1−n)/s, εA, V0 (L), cA0 (mol/L). */

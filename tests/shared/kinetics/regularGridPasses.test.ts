@@ -1,7 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { fitVolumes, initialConcentrationGas, predictVolume } from "../../../shared/kinetics/index";
-import { closedFormPass, OPEN_GUARD } from "../../../shared/kinetics/closedFormPasses";
-import { gridPass, likelyGrid } from "../../../shared/kinetics/regularGridPasses";
+import { closedFormPass } from "../../../shared/kinetics/closedFormPasses";
+import { OPEN_GUARD } from "../../../shared/kinetics/passBasics";
+import { likelyGrid } from "../../../shared/kinetics/regularGrid";
+import { gridPass } from "../../../shared/kinetics/regularGridPasses";
 import { odexConversion } from "../../support/odexReference";
 
 const V0 = 2;
