@@ -16,11 +16,18 @@ class SecondOrderAnchor {
   tau = Number.NaN;
   reach = 0;
 
-  /** Moves the anchor to τ, warm-starting the exact solve from the polynomial's volume m. */
-  moveTo(tau: number, V0: number, eps: number, m: number): void {
-    const estimate = (m - V0) / (V0 * eps);
-    secondOrderCoefficients(secondOrderConversion(tau, eps, Number.isFinite(m) ? estimate : -1), eps, this.a);
-    for (let j = 0; j <= SECOND_ORDER_DEGREE; j++) this.volume[j] = V0 * eps * this.a[j];
+  constructor(private readonly V0: number, private readonly eps: number) {}
+
+  /**
+   * Moves the anchor to τ. The exact solve starts from the present polynomial's conversion
+   * when τ lies a little ahead of the present anchor (within twice its reach), else afresh.
+   */
+  moveTo(tau: number): void {
+    const { V0, eps, a } = this;
+    const d = tau - this.tau;
+    const estimate = d > 0 && d <= 2 * this.reach ? a[0] + d * (a[1] + d * (a[2] + d * (a[3] + d * (a[4] + d * (a[5] + d * a[6]))))) : -1;
+    secondOrderCoefficients(secondOrderConversion(tau, eps, estimate), eps, a);
+    for (let j = 0; j <= SECOND_ORDER_DEGREE; j++) this.volume[j] = V0 * eps * a[j];
     this.volume[0] += V0;
     this.tau = tau;
     this.reach = secondOrderReach(tau, eps);
@@ -36,7 +43,7 @@ export function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums):
   const full = V0 * (1 + eps);
   const lowV = unboxed(guard.lowV);
   const highV = unboxed(guard.highV);
-  const anchor = new SecondOrderAnchor();
+  const anchor = new SecondOrderAnchor(V0, eps);
   const c = anchor.volume;
   let anchorTau = Number.NaN, reach = 0;
   let c0 = 0, c1 = 0, c2 = 0, c3 = 0, c4 = 0, c5 = 0, c6 = 0;
@@ -48,7 +55,7 @@ export function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums):
     const tau = scale * ti;
     let d = tau - anchorTau;
     if (!(d >= 0 && d <= reach)) {
-      anchor.moveTo(tau, V0, eps, d > 0 && d <= 2 * reach ? c0 + d * (c1 + d * (c2 + d * (c3 + d * (c4 + d * (c5 + d * c6))))) : Number.NaN);
+      anchor.moveTo(tau);
       c0 = c[0]; c1 = c[1]; c2 = c[2]; c3 = c[3]; c4 = c[4]; c5 = c[5]; c6 = c[6];
       anchorTau = tau;
       reach = anchor.reach;
@@ -74,7 +81,7 @@ export function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out:
   const eps = unboxed(s.epsilonA);
   const full = V0 * (1 + eps);
   const shift = n > 0 ? V[0] : 0;
-  const anchor = new SecondOrderAnchor();
+  const anchor = new SecondOrderAnchor(V0, eps);
   const c = anchor.volume;
   let anchorTau = Number.NaN, reach = 0;
   let c0 = 0, c1 = 0, c2 = 0, c3 = 0, c4 = 0, c5 = 0, c6 = 0;
@@ -85,7 +92,7 @@ export function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out:
     const tau = scale * ti;
     let d = tau - anchorTau;
     if (!(d >= 0 && d <= reach)) {
-      anchor.moveTo(tau, V0, eps, d > 0 && d <= 2 * reach ? c0 + d * (c1 + d * (c2 + d * (c3 + d * (c4 + d * (c5 + d * c6))))) : Number.NaN);
+      anchor.moveTo(tau);
       c0 = c[0]; c1 = c[1]; c2 = c[2]; c3 = c[3]; c4 = c[4]; c5 = c[5]; c6 = c[6];
       anchorTau = tau;
       reach = anchor.reach;
@@ -113,7 +120,7 @@ export function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out:
  */
 export function secondOrderVolumes(V0: number, epsilonA: number, scale: number, t: ArrayLike<number>, out: Float64Array): void {
   const n = t.length;
-  const anchor = new SecondOrderAnchor();
+  const anchor = new SecondOrderAnchor(V0, epsilonA);
   const c = anchor.volume;
   let anchorTau = Number.NaN, reach = 0;
   let c0 = 0, c1 = 0, c2 = 0, c3 = 0, c4 = 0, c5 = 0, c6 = 0;
@@ -122,7 +129,7 @@ export function secondOrderVolumes(V0: number, epsilonA: number, scale: number, 
     let d = tau - anchorTau;
     if (!(d >= 0 && d <= reach)) {
       const d2 = d * d;
-      anchor.moveTo(tau, V0, epsilonA, d > 0 && d <= 2 * reach ? c0 + d * c1 + d2 * (c2 + d * c3 + d2 * (c4 + d * c5 + d2 * c6)) : Number.NaN);
+      anchor.moveTo(tau);
       c0 = c[0]; c1 = c[1]; c2 = c[2]; c3 = c[3]; c4 = c[4]; c5 = c[5]; c6 = c[6];
       anchorTau = tau;
       reach = anchor.reach;
