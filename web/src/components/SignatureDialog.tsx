@@ -6,7 +6,7 @@ import { SignatureSchema, type SignatureInput, type SignatureMeaning } from "../
 import { ApiError } from "../api/client";
 import { useSession } from "../features/session/useSession";
 import { errorMessage } from "../lib/serverFieldErrors";
-import { Button } from "./Button";
+import { FormActions } from "./FormActions";
 import { Dialog } from "./Dialog";
 import { describedBy } from "./Field";
 import { Notice } from "./Notice";
@@ -107,14 +107,7 @@ function SignatureForm({ meaning, subject, sign, onSigned, onLocked, onClose }: 
           {...register("comment")}
         />
       </SchemaField>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={isSubmitting}>
-          Sign: {meaning}
-        </Button>
-        <Button variant="secondary" onClick={onClose}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel={<>Sign: {meaning}</>} busy={isSubmitting} onCancel={onClose} />
     </form>
   );
 }

@@ -2,7 +2,7 @@ import { useId } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
-import { Button } from "../../components/Button";
+import { FormActions } from "../../components/FormActions";
 import { Dialog } from "../../components/Dialog";
 import { describedBy } from "../../components/Field";
 import { Notice } from "../../components/Notice";
@@ -58,14 +58,7 @@ function ReasonBody({ intro, submitLabel, danger, onSubmit, onClose }: Omit<Reas
       <SchemaField id={id} label="Reason" hint={hint} error={errors.reason?.message}>
         <TextArea id={id} rows={3} invalid={Boolean(errors.reason)} aria-describedby={describedBy(id, hint, errors.reason?.message)} {...register("reason")} />
       </SchemaField>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" variant={danger ? "danger" : "primary"} busy={isSubmitting}>
-          {submitLabel}
-        </Button>
-        <Button variant="secondary" onClick={onClose}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel={submitLabel} variant={danger ? "danger" : "primary"} busy={isSubmitting} onCancel={onClose} />
     </form>
   );
 }
