@@ -1,12 +1,13 @@
 import express, { type Express } from "express";
 import helmet from "helmet";
-import { pinoHttp } from "pino-http";
 import { existsSync } from "node:fs";
 import { join } from "node:path";
 import type { AppServices, RouteContext } from "./services/types.js";
 import type { RouteDeclaration } from "./http/policyRouter.js";
 import { errorHandler, notFoundRoute } from "./http/errors.js";
+import { requestLog } from "./http/requestLog.js";
 import { sessionMiddleware } from "./http/session.js";
+import { SESSION_CACHE_LIMITS, SessionCache } from "./http/sessionCache.js";
 import { idempotency } from "./http/idempotency.js";
 import { signingLimiter } from "./http/signingLimiter.js";
 import { createCredentialChecker } from "./commands/credentialChecker.js";
@@ -32,6 +33,7 @@ import { trainingRoutes } from "./routes/training/training.js";
 export interface BuiltApp {
   app: Express;
   routes: RouteDeclaration[];
+  sessionCache: SessionCache;
   close(): Promise<void>;
 }
 
@@ -41,9 +43,10 @@ export function createApp(services: AppServices): BuiltApp {
   const app = express();
   app.set("trust proxy", "loopback");
   app.disable("x-powered-by");
-  const checkCredentials = createCredentialChecker({ db: services.db, mail: services.mail, lockoutThreshold: settings.lockoutThreshold, appUrl: settings.appUrl, passwordMaxAgeDays: settings.passwordMaxAgeDays });
+  const sessionCache = new SessionCache(SESSION_CACHE_LIMITS);
+  const checkCredentials = createCredentialChecker({ db: services.db, mail: services.mail, lockoutThreshold: settings.lockoutThreshold, appUrl: settings.appUrl, passwordMaxAgeDays: settings.passwordMaxAgeDays, afterPersonChange: (id) => sessionCache.forgetPerson(id) });
   const changes = createChangeFeed(services.pool, log);
-  const ctx: RouteContext = { ...services, checkCredentials, notify: createNotifier(services.mail, settings.appUrl), changes };
+  const ctx: RouteContext = { ...services, checkCredentials, notify: createNotifier(services.mail, settings.appUrl), changes, sessionCache };
   const routes: RouteDeclaration[] = [];
 
   app.use(
@@ -66,9 +69,9 @@ export function createApp(services: AppServices): BuiltApp {
       strictTransportSecurity: settings.secureCookie,
     }),
   );
-  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === "/api/health" }, quietReqLogger: true }));
+  app.use(requestLog(log, { skip: (path) => path === "/api/health" }));
   app.use("/api", express.json({ limit: "1mb" }));
-  const sessions = sessionMiddleware({ pool: services.pool, db: services.db, secret: settings.sessionSecret, idleMinutes: settings.sessionIdleMinutes, secureCookie: settings.secureCookie, checkCredentials });
+  const sessions = sessionMiddleware({ pool: services.pool, db: services.db, secret: settings.sessionSecret, idleMinutes: settings.sessionIdleMinutes, secureCookie: settings.secureCookie, checkCredentials, sessionCache, log });
   app.use("/api", ...sessions.handlers);
   app.use("/api", idempotency(services.db));
   app.use("/api", signingLimiter(settings.signaturesPerMinute));
@@ -106,6 +109,7 @@ export function createApp(services: AppServices): BuiltApp {
   return {
     app,
     routes,
+    sessionCache,
     close: async () => {
       changes.close();
       sessions.close();

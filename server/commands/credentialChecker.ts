@@ -18,6 +18,8 @@ export interface CredentialCheckerOptions {
   appUrl: string;
   /** Passwords older than this must be changed at sign-in. */
   passwordMaxAgeDays?: number;
+  /** Told once a change to a person is committed (this server's copies of their sessions go). */
+  afterPersonChange?: (personId: string) => void;
 }
 
 /**
@@ -47,6 +49,7 @@ export function createCredentialChecker(opts: CredentialCheckerOptions) {
         if (expired) await recordAudit(tx, SYSTEM_ACTOR, { action: "password-expired", entityType: "person", entityId: person.id, before: { mustChangePassword: false }, after: { mustChangePassword: true }, reason: `password older than ${opts.passwordMaxAgeDays} days` });
         if (purpose === "sign-in") await recordAudit(tx, actor, { action: "signed-in", entityType: "person", entityId: person.id });
       });
+      opts.afterPersonChange?.(person.id);
       return { ok: true, person: expired ? { ...person, mustChangePassword: true } : person };
     }
     const locked = await opts.db.transaction(async (tx) => {
@@ -77,6 +80,7 @@ export function createCredentialChecker(opts: CredentialCheckerOptions) {
       }
       return true;
     });
+    opts.afterPersonChange?.(person.id);
     return { ok: false, reason: locked ? "account-locked" : "bad-credentials" };
   };
 }

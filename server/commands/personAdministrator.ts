@@ -12,9 +12,9 @@ type PersonRow = typeof people.$inferSelect;
 type Change = Partial<typeof people.$inferInsert>;
 
 /** Account administration: each change audited with its reason in the same transaction. */
-export function createPersonAdministrator(db: Db) {
+export function createPersonAdministrator(db: Db, afterPersonChange: (personId: string) => void = () => undefined) {
   async function change(actor: Actor, id: string, action: string, reason: string, patch: (row: PersonRow) => Change | Promise<Change>, opts: { endSessions?: boolean } = {}) {
-    return db.transaction(async (tx) => {
+    const person = await db.transaction(async (tx) => {
       const [row] = await tx.select().from(people).where(eq(people.id, id)).for("update");
       if (!row) throw notFound("That person");
       const values = await patch(row);
@@ -24,6 +24,8 @@ export function createPersonAdministrator(db: Db) {
       if (opts.endSessions) await tx.delete(sessions).where(sql`${sessions.sess}::jsonb -> 'passport' ->> 'user' = ${id}`);
       return presentPerson(updated);
     });
+    afterPersonChange(id);
+    return person;
   }
 
   return {

@@ -1,5 +1,6 @@
 import session from "express-session";
 import { createSessionStore } from "./sessionStore.js";
+import type { SessionCache } from "./sessionCache.js";
 import passport from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
 import type { CheckCredentials } from "../commands/credentialChecker.js";
@@ -20,11 +21,13 @@ export interface SessionOptions {
   idleMinutes: number;
   secureCookie: boolean;
   checkCredentials: CheckCredentials;
+  sessionCache: SessionCache;
+  log: { warn: (o: object, m: string) => void };
 }
 
 /** Sessions in PostgreSQL, passport on top, idle timeout and CSRF check: in that order. */
 export function sessionMiddleware(opts: SessionOptions) {
-  const { store, personReadWith } = createSessionStore(opts.pool);
+  const { store, personReadWith, close } = createSessionStore(opts.pool, opts.sessionCache, opts.log);
   const instance: passport.Authenticator = new passport.Passport();
   instance.use(
     new LocalStrategy({ usernameField: "email", passwordField: "password" }, (email, password, done) => {
@@ -63,7 +66,7 @@ export function sessionMiddleware(opts: SessionOptions) {
     instance.session(),
     csrfCheck,
   ];
-  return { handlers, passport: instance, store, close: () => (store as unknown as { close(): void }).close() };
+  return { handlers, passport: instance, store, close };
 }
 
 export function toSignedInPerson(row: Pick<typeof people.$inferSelect, "id" | "email" | "name" | "roles" | "mustChangePassword">): SignedInPerson {

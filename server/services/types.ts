@@ -6,6 +6,7 @@ import type { MailService } from "./mail.js";
 import type { CheckCredentials } from "../commands/credentialChecker.js";
 import type { Notifier } from "../commands/notifier.js";
 import type { ChangeFeed } from "./live.js";
+import type { SessionCache } from "../http/sessionCache.js";
 
 /** Settings the app reads at run time (already validated). */
 export interface AppSettings {
@@ -38,4 +39,6 @@ export interface RouteContext extends AppServices {
   checkCredentials: CheckCredentials;
   notify: Notifier;
   changes: ChangeFeed;
+  /** Sessions read recently; routes that change a person forget that person's copies. */
+  sessionCache: SessionCache;
 }

@@ -1,5 +1,5 @@
 import { inject } from "vitest";
-import { pino } from "pino";
+import { pino, type Logger } from "pino";
 import request from "supertest";
 import type { Express } from "express";
 import { createApp } from "../../server/app.js";
@@ -8,10 +8,12 @@ import { createStorageService, type StorageService } from "../../server/services
 import { createMailService, type MailService } from "../../server/services/mail.js";
 import type { AppSettings } from "../../server/services/types.js";
 import type { RouteDeclaration } from "../../server/http/policyRouter.js";
+import type { SessionCache } from "../../server/http/sessionCache.js";
 
 export interface TestApp {
   app: Express;
   routes: RouteDeclaration[];
+  sessionCache: SessionCache;
   database: Database;
   storage: StorageService;
   mail: MailService;
@@ -25,11 +27,13 @@ export interface TestAppOptions {
   smtpUrl?: string;
   bucket?: string;
   databaseUrl?: string;
+  /** The app's logger; silent unless given. */
+  log?: Logger;
 }
 
 /** Builds the real app over the run's throw-away services; each test file makes its own. */
 export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
-  const log = pino({ level: "silent" });
+  const log = opts.log ?? pino({ level: "silent" });
   const database = createDatabase(opts.databaseUrl ?? inject("databaseUrl"));
   const storage = createStorageService({ endpoint: opts.s3Endpoint ?? inject("s3Endpoint"), bucket: opts.bucket ?? "isobatch-test", region: "us-east-1", accessKeyId: "S3RVER", secretAccessKey: "S3RVER" });
   if (!opts.s3Endpoint) await storage.ensureBucket();
@@ -52,6 +56,7 @@ export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> 
   return {
     app: built.app,
     routes: built.routes,
+    sessionCache: built.sessionCache,
     database,
     storage,
     mail,

@@ -13,7 +13,7 @@ import { changesRecord, createsRecord } from "../../http/recordEffects.js";
 /** /api/people: accounts and roles, for admins. People are never deleted. */
 export function peopleRoutes(ctx: RouteContext, registry: RouteDeclaration[]) {
   const r = policyRouter("/api/people", registry);
-  const admin = createPersonAdministrator(ctx.db);
+  const admin = createPersonAdministrator(ctx.db, (id) => ctx.sessionCache.forgetPerson(id));
   const me = (req: { user?: unknown }) => req.user as SignedInPerson;
 
   r.get("/", allow("admin"), async (_req, res) => {

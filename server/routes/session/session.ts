@@ -83,6 +83,7 @@ export function sessionRoutes(ctx: RouteContext, registry: RouteDeclaration[], p
       await recordAudit(tx, me, { action: "password-changed", entityType: "person", entityId: me.id, before: { mustChangePassword: row.mustChangePassword }, after: { mustChangePassword: false } });
       return u;
     });
+    ctx.sessionCache.forgetPerson(me.id);
     const user = toSignedInPerson(updated);
     await logIn(req, user);
     req.session.lastSeenAt = Date.now();
