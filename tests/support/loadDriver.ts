@@ -31,6 +31,32 @@ export interface LoadOutcome {
   statusCodes: Record<string, number>;
   /** The ids read from every 2xx answer. */
   acknowledged: string[];
+  /** The time of every completed request. */
+  latenciesMs: number[];
+}
+
+/** Several runs against one endpoint as one: counts added, latencies pooled (percentiles by nearest rank). */
+export function combineRuns(runs: LoadOutcome[]): LoadOutcome {
+  const sum = (f: (o: LoadOutcome) => number) => runs.reduce((s, o) => s + f(o), 0);
+  const latencies = Float64Array.from(runs.flatMap((o) => o.latenciesMs)).sort();
+  const rank = (p: number) => (latencies.length === 0 ? Number.NaN : latencies[Math.max(0, Math.ceil(p * latencies.length) - 1)]);
+  const statusCodes: Record<string, number> = {};
+  for (const o of runs) for (const [code, n] of Object.entries(o.statusCodes)) statusCodes[code] = (statusCodes[code] ?? 0) + n;
+  const durationS = sum((o) => o.durationS);
+  return {
+    durationS,
+    requestsPerSecond: sum((o) => o.requestsPerSecond * o.durationS) / durationS,
+    ok2xx: sum((o) => o.ok2xx),
+    non2xx: sum((o) => o.non2xx),
+    errors: sum((o) => o.errors),
+    timeouts: sum((o) => o.timeouts),
+    p50Ms: rank(0.5),
+    p99Ms: rank(0.99),
+    maxMs: latencies.length === 0 ? Number.NaN : latencies[latencies.length - 1],
+    statusCodes,
+    acknowledged: runs.flatMap((o) => o.acknowledged),
+    latenciesMs: Array.from(latencies),
+  };
 }
 
 /** Drives POST requests with autocannon in a worker thread and returns its figures. */

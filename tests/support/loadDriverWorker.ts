@@ -5,6 +5,7 @@ import type { LoadRun, LoadOutcome } from "./loadDriver.js";
 // Runs in its own thread so the load generator does not share the server's event loop.
 const run = workerData as LoadRun;
 const acknowledged: string[] = [];
+const latenciesMs: number[] = [];
 let next = 0;
 
 function idAt(body: string, path: string[]): string | undefined {
@@ -63,8 +64,11 @@ const instance = autocannon(
       maxMs: aggregate.latency.max,
       statusCodes,
       acknowledged,
+      latenciesMs,
     };
     parentPort!.postMessage({ outcome });
   },
 );
+// Every completed request's time, so runs split into slices can be pooled exactly.
+instance.on("response", (_client: unknown, _status: number, _bytes: number, responseTimeMs: number) => latenciesMs.push(responseTimeMs));
 instance.on("error", (err) => parentPort!.postMessage({ error: String(err) }));
