@@ -1,4 +1,5 @@
 import type { Trace } from "./trace.js";
+import type { SelectionBuffers } from "./selectionBuffers.js";
 
 export interface SelectedPoints {
   t: Float64Array;
@@ -16,9 +17,10 @@ export interface SelectionRules {
 
 /**
  * The points a fit may use: finite, t ≥ 0, and conversion below full (or below the given cap).
- * Arrays are copied only when something is dropped (the copies may view longer buffers).
+ * Arrays are copied only when something is dropped (the copies may view longer buffers), into
+ * `buffers` when given: then the result is valid only until their next use.
  */
-export function selectFitPoints(trace: Trace, rules: SelectionRules): SelectedPoints {
+export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: SelectionBuffers): SelectedPoints {
   const { V0, epsilonA } = rules;
   const cap = rules.maxConversion;
   const n = Math.min(trace.t.length, trace.V.length);
@@ -26,8 +28,7 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules): SelectedPo
     return { t: trace.t.subarray(0, n), V: trace.V.subarray(0, n), excluded: 0, warnings: [] };
   }
   // One pass straight into arrays sized for every point; the result views the part filled.
-  const t = new Float64Array(n);
-  const V = new Float64Array(n);
+  const { t, V } = buffers?.take(n) ?? { t: new Float64Array(n), V: new Float64Array(n) };
   const counts = new SelectionCounts();
   if (trace.t instanceof Float64Array && trace.V instanceof Float64Array) sortTypedPoints(trace.t, trace.V, n, rules, t, V, counts);
   else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);

@@ -7,6 +7,7 @@ import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
 import { clearVolumeLimits, selectFitPoints, thinPoints } from "./traceSelection.js";
 import { createVolumeModel } from "./volumeModel.js";
+import { SelectionBuffers } from "./selectionBuffers.js";
 
 export interface VolumeFitOptions extends ChargeSetup {
   order: number;
@@ -60,9 +61,12 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   return summarise(solution, options, fitOrder, 0, warnings);
 }
 
+/** The selected copy of the trace lives only within one fit (the result holds new arrays). */
+const selectionBuffers = new SelectionBuffers();
+
 /** The fit on the points the selection rules keep. */
 function fitSelectedPoints(trace: Trace, options: VolumeFitOptions, fitOrder: boolean): FitResult {
-  const selected = selectFitPoints(trace, { V0: options.V0, epsilonA: options.epsilonA });
+  const selected = selectFitPoints(trace, { V0: options.V0, epsilonA: options.epsilonA }, selectionBuffers);
   const warnings = [...selected.warnings];
   const parameterCount = fitOrder ? 2 : 1;
   const n = selected.t.length;

@@ -4,6 +4,7 @@ import { closedFormPass } from "../../../shared/kinetics/closedFormPasses";
 import { OPEN_GUARD } from "../../../shared/kinetics/passBasics";
 import { likelyGrid } from "../../../shared/kinetics/regularGrid";
 import { gridPass } from "../../../shared/kinetics/regularGridPasses";
+import { SelectionBuffers } from "../../../shared/kinetics/selectionBuffers";
 import { odexConversion } from "../../support/odexReference";
 
 const V0 = 2;
@@ -161,5 +162,37 @@ describe("fitVolumes on many points takes the same k by every route", () => {
     expect(fast.points).toBe(POINTS - 2);
     expect(exact.points).toBe(POINTS - 2);
     expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+  });
+
+  it("gives the same fit whatever was fitted before it, and later fits leave its results alone", () => {
+    // The selected copy lives in arrays reused from fit to fit (SelectionBuffers).
+    const t = evenTimes(POINTS, 3600);
+    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
+    V[700] = Number.NaN;
+    const first = fitVolumes({ t, V }, { order: 1, V0, epsilonA: 0.7 });
+    const residualsThen = Float64Array.from(first.residuals);
+    const bigT = evenTimes(2 * POINTS, 7200);
+    const bigV = noisyVolumes(0, 0.7, k * CA0, bigT, 2e-3);
+    bigV[3] = Number.NaN;
+    fitVolumes({ t: bigT, V: bigV }, { order: 0, V0, epsilonA: 0.7, cA0: CA0 });
+    const again = fitVolumes({ t, V }, { order: 1, V0, epsilonA: 0.7 });
+    expect(again.k).toBe(first.k);
+    expect(again.points).toBe(POINTS - 1);
+    expect(Array.from(again.residuals)).toEqual(Array.from(residualsThen));
+    expect(Array.from(first.residuals)).toEqual(Array.from(residualsThen));
+  });
+});
+
+describe("SelectionBuffers", () => {
+  it("hands back the same arrays while they are long enough, and keeps none above its limit", () => {
+    const buffers = new SelectionBuffers(100);
+    const a = buffers.take(50);
+    expect(buffers.take(40).t).toBe(a.t);
+    const b = buffers.take(80);
+    expect(b.t).not.toBe(a.t);
+    expect(buffers.take(60).V).toBe(b.V);
+    const huge = buffers.take(200);
+    expect(huge.t.length).toBe(200);
+    expect(buffers.take(10).t).toBe(b.t);
   });
 });
