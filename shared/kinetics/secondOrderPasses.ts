@@ -1,4 +1,4 @@
-import { keep, LARGEST, unboxed, type LoopSums, type PassSetup, type PointGuard } from "./passBasics.js";
+import { keep, LARGEST, LoopSums, unboxed, type PassSetup, type PointGuard } from "./passBasics.js";
 import { SECOND_ORDER_DEGREE, secondOrderCoefficients, secondOrderConversion, secondOrderReach } from "./secondOrderSeries.js";
 
 /*
@@ -34,6 +34,12 @@ class SecondOrderAnchor {
   }
 }
 
+/*
+ * Each pass moves the anchor to the first point out of reach and hands the points within reach
+ * to a span function with its sums in locals: the same loop with the anchor's move inside it ran
+ * about an eighth slower (measured).
+ */
+
 export function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums): boolean {
   const { t, V } = s;
   const n = t.length;
@@ -44,23 +50,33 @@ export function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums):
   const lowV = unboxed(guard.lowV);
   const highV = unboxed(guard.highV);
   const anchor = new SecondOrderAnchor(V0, eps);
+  const sums = new LoopSums();
+  let i = 0;
+  while (i < n) {
+    const ti = t[i];
+    if (!(ti >= 0 && ti <= LARGEST)) return false;
+    anchor.moveTo(scale * ti);
+    i = sumsWithinReach(t, V, i, scale, anchor, full, lowV, highV, sums);
+    if (i < 0) return false;
+  }
+  return keep(out, sums.ssr, sums.gg / (eps * eps), sums.gr / eps, 0, 0);
+}
+
+/** Sums over the points from `from` on within the anchor's reach; the index after them, or −1 at a point outside the guard. */
+function sumsWithinReach(t: Float64Array, V: Float64Array, from: number, scale: number, anchor: SecondOrderAnchor, full: number, lowV: number, highV: number, sums: LoopSums): number {
+  const n = t.length;
   const c = anchor.volume;
-  let anchorTau = Number.NaN, reach = 0;
-  let c0 = 0, c1 = 0, c2 = 0, c3 = 0, c4 = 0, c5 = 0, c6 = 0;
+  const c0 = c[0], c1 = c[1], c2 = c[2], c3 = c[3], c4 = c[4], c5 = c[5], c6 = c[6];
+  const anchorTau = unboxed(anchor.tau), reach = unboxed(anchor.reach);
   let ssr = 0, gg = 0, gr = 0;
-  for (let i = 0; i < n; i++) {
+  let i = from;
+  for (; i < n; i++) {
     const ti = t[i];
     const v = V[i];
-    if (!(ti >= 0 && ti <= LARGEST && v > lowV && v < highV)) return false;
-    const tau = scale * ti;
-    let d = tau - anchorTau;
-    if (!(d >= 0 && d <= reach)) {
-      anchor.moveTo(tau);
-      c0 = c[0]; c1 = c[1]; c2 = c[2]; c3 = c[3]; c4 = c[4]; c5 = c[5]; c6 = c[6];
-      anchorTau = tau;
-      reach = anchor.reach;
-      d = 0;
-    }
+    if (!(ti >= 0 && ti <= LARGEST && v > lowV && v < highV)) return -1;
+    const d = scale * ti - anchorTau;
+    // The first point always passes (d = 0), so every call moves on.
+    if (!(d >= 0 && d <= reach) && i > from) break;
     const d2 = d * d;
     const m = c0 + d * c1 + d2 * (c2 + d * c3 + d2 * (c4 + d * c5 + d2 * c6));
     const r = v - m;
@@ -70,34 +86,44 @@ export function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums):
     gg += g * g;
     gr += g * r;
   }
-  return keep(out, ssr, gg / (eps * eps), gr / eps, 0, 0);
+  sums.ssr += ssr;
+  sums.gg += gg;
+  sums.gr += gr;
+  return i;
 }
 
 export function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out: LoopSums): void {
-  const { t, V } = s;
+  const { t } = s;
   const n = t.length;
   const V0 = unboxed(s.V0);
   const scale = unboxed(s.scale);
   const eps = unboxed(s.epsilonA);
   const full = V0 * (1 + eps);
-  const shift = n > 0 ? V[0] : 0;
+  const shift = n > 0 ? s.V[0] : 0;
   const anchor = new SecondOrderAnchor(V0, eps);
+  const sums = new LoopSums();
+  let i = 0;
+  while (i < n) {
+    anchor.moveTo(scale * t[i]);
+    i = residualsWithinReach(t, s.V, residuals, i, scale, anchor, full, shift, sums);
+  }
+  keep(out, sums.ssr, sums.gg / (eps * eps), sums.gr / eps, sums.sum, sums.squares);
+}
+
+/** Residuals and sums over the points from `from` on within the anchor's reach; the index after them. */
+function residualsWithinReach(t: Float64Array, V: Float64Array, residuals: Float64Array, from: number, scale: number, anchor: SecondOrderAnchor, full: number, shift: number, sums: LoopSums): number {
+  const n = t.length;
   const c = anchor.volume;
-  let anchorTau = Number.NaN, reach = 0;
-  let c0 = 0, c1 = 0, c2 = 0, c3 = 0, c4 = 0, c5 = 0, c6 = 0;
+  const c0 = c[0], c1 = c[1], c2 = c[2], c3 = c[3], c4 = c[4], c5 = c[5], c6 = c[6];
+  const anchorTau = unboxed(anchor.tau), reach = unboxed(anchor.reach);
   let ssr = 0, gg = 0, gr = 0, sum = 0, squares = 0;
-  for (let i = 0; i < n; i++) {
+  let i = from;
+  for (; i < n; i++) {
     const ti = t[i];
+    const d = scale * ti - anchorTau;
+    // The first point always passes (d = 0), so every call moves on.
+    if (!(d >= 0 && d <= reach) && i > from) break;
     const v = V[i];
-    const tau = scale * ti;
-    let d = tau - anchorTau;
-    if (!(d >= 0 && d <= reach)) {
-      anchor.moveTo(tau);
-      c0 = c[0]; c1 = c[1]; c2 = c[2]; c3 = c[3]; c4 = c[4]; c5 = c[5]; c6 = c[6];
-      anchorTau = tau;
-      reach = anchor.reach;
-      d = 0;
-    }
     const d2 = d * d;
     const m = c0 + d * c1 + d2 * (c2 + d * c3 + d2 * (c4 + d * c5 + d2 * c6));
     const r = v - m;
@@ -111,7 +137,12 @@ export function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out:
     sum += dv;
     squares += dv * dv;
   }
-  keep(out, ssr, gg / (eps * eps), gr / eps, sum, squares);
+  sums.ssr += ssr;
+  sums.gg += gg;
+  sums.gr += gr;
+  sums.sum += sum;
+  sums.squares += squares;
+  return i;
 }
 
 /**
