@@ -44,6 +44,10 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
   const highV = unboxed(guard.highV);
   const factor = Math.exp(rate * h);
   let ssr = 0, gg = 0, gr = 0;
+  // A time within the tolerance of its grid time is finite; with t[0] ≥ 0, t0 ≥ 0 and steps wider
+  // than twice the tolerance, none is negative: so only the volumes need the guard at each point.
+  if (!(t0 >= 0 && t0 <= LARGEST && (n === 0 || t[0] >= 0))) return "outside guard";
+  if (!(h > 2 * tolerance)) return "off grid";
   for (let from = 0; from < n; from += ANCHOR_EVERY) {
     const to = Math.min(n, from + ANCHOR_EVERY);
     const anchor = t0 + from * h;
@@ -52,9 +56,9 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
     for (let i = from; i < to; i++) {
       const ti = t[i];
       const v = V[i];
-      if (!(ti >= 0 && ti <= LARGEST && v > lowV && v < highV)) return "outside guard";
       const off = ti - (anchor + steps * h);
       if (!(off <= tolerance && off >= -tolerance)) return "off grid";
+      if (!(v > lowV && v < highV)) return "outside guard";
       if (direction * q >= flatAt) {
         const r = v - full;
         ssr += r * r;

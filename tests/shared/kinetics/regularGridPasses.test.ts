@@ -86,6 +86,19 @@ describe("passes on a regular time grid", () => {
     expect(gridPass(setupFor(1, t, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("complete");
   });
 
+  it("the checked pass judges the times by the grid: a missing time is off the grid, a negative start outside the guard", () => {
+    const k = 6e-4;
+    const t = evenTimes(POINTS, 3600);
+    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
+    const grid = likelyGrid(t, k)!;
+    const sums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    const holed = Float64Array.from(t);
+    holed[777] = Number.NaN;
+    expect(gridPass(setupFor(1, holed, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("off grid");
+    const early = Float64Array.from(t, (ti) => ti - 5);
+    expect(gridPass(setupFor(1, early, V, 0.7, k), likelyGrid(early, k)!, null, sums, OPEN_GUARD)).toBe("outside guard");
+  });
+
   it("does not take times with jitter for a grid", () => {
     const t = evenTimes(POINTS, 3600);
     for (let i = 1; i < POINTS - 1; i++) t[i] += 0.01 * Math.sin(i);
@@ -162,6 +175,21 @@ describe("fitVolumes on many points takes the same k by every route", () => {
     expect(fast.points).toBe(POINTS - 2);
     expect(exact.points).toBe(POINTS - 2);
     expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+  });
+
+  it.each([0, 1] as const)("order %i on a grid with a missing time and times before zero", (order) => {
+    const kk = k / Math.pow(CA0, order - 1);
+    const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
+    const V = noisyVolumes(order, 0.7, kk, t, 1e-3);
+    const shifted = Float64Array.from(t, (ti) => ti - 2);
+    t[4_321] = Number.NaN;
+    for (const times of [t, shifted]) {
+      const fast = fitVolumes({ t: times, V }, { order, V0, epsilonA: 0.7, cA0: CA0 });
+      const exact = fitVolumes({ t: plainCopy(times), V: plainCopy(V) }, { order, V0, epsilonA: 0.7, cA0: CA0 });
+      expect(fast.points).toBe(exact.points);
+      expect(fast.points).toBeLessThan(POINTS);
+      expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+    }
   });
 
   it("gives the same fit whatever was fitted before it, and later fits leave its results alone", () => {
