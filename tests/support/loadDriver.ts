@@ -59,8 +59,11 @@ export function combineRuns(runs: LoadOutcome[]): LoadOutcome {
   };
 }
 
-/** Drives POST requests with autocannon in a worker thread and returns its figures. */
-export function runLoad(run: LoadRun): Promise<LoadOutcome> {
+/**
+ * Drives POST requests with autocannon in a worker thread and returns its figures. `onStart` is
+ * called once the worker has loaded and starts sending, so meters can leave out its start-up.
+ */
+export function runLoad(run: LoadRun, onStart?: () => void): Promise<LoadOutcome> {
   const file = new URL("./loadDriverWorker.ts", import.meta.url).href;
   // The worker registers the TypeScript loader itself, then loads the driver.
   const boot = `import("tsx/esm/api").then((m) => { m.register(); return import(${JSON.stringify(file)}); })`;
@@ -70,7 +73,8 @@ export function runLoad(run: LoadRun): Promise<LoadOutcome> {
       void worker.terminate();
       fail(new Error("the load driver did not finish in time"));
     }, (run.durationS + (run.timeoutS ?? 10) + 30) * 1000);
-    worker.once("message", (msg: { outcome?: LoadOutcome; error?: string }) => {
+    worker.on("message", (msg: { started?: true; outcome?: LoadOutcome; error?: string }) => {
+      if (msg.started) return onStart?.();
       clearTimeout(guard);
       void worker.terminate();
       if (msg.outcome) ok(msg.outcome);

@@ -18,6 +18,7 @@ function idAt(body: string, path: string[]): string | undefined {
   }
 }
 
+parentPort!.postMessage({ started: true });
 const instance = autocannon(
   {
     url: run.url,
