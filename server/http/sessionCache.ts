@@ -1,4 +1,5 @@
 import type pg from "pg";
+import { listenOn, type NotificationListener } from "../services/notificationListener.js";
 import type { SessionPerson } from "./sessionStore.js";
 
 /** The PostgreSQL channel that session and person changes are announced on (migration 0013). */
@@ -98,7 +99,7 @@ export class SessionCache {
     this.forgetAll();
   }
 
-  /** Applies one announcement: 's' + sid, 'p' + person id, or '*'. */
+  /** Applies one announcement: 's' + sid, 'p' + person id, anything else forgets everything. */
   hear(payload: string): void {
     if (payload.startsWith("s")) this.forgetSession(payload.slice(1));
     else if (payload.startsWith("p")) this.forgetPerson(payload.slice(1));
@@ -107,59 +108,9 @@ export class SessionCache {
 }
 
 /**
- * Listens for session announcements on one dedicated connection and applies them to the cache;
- * reconnects by itself. The cache is in use only between LISTEN succeeding and the connection
- * failing, and starts empty each time (announcements made meanwhile were not heard).
+ * Applies the database's session announcements to the cache. The cache is in use only while the
+ * listener holds, and starts empty each time (announcements made meanwhile were not heard).
  */
-export function listenForSessionChanges(pool: pg.Pool, cache: SessionCache, log: { warn: (o: object, m: string) => void }, retryMs = 1000) {
-  let client: pg.PoolClient | undefined;
-  let closed = false;
-  let retry: NodeJS.Timeout | undefined;
-
-  const lost = (c: pg.PoolClient) => {
-    if (client !== c) return;
-    client = undefined;
-    if (!closed) log.warn({}, "session cache: lost the database's announcements; reading every session from the database until they are back");
-    cache.setListening(false);
-    c.release(true);
-    schedule();
-  };
-  const schedule = () => {
-    if (!closed) retry = setTimeout(connect, retryMs);
-  };
-
-  async function connect() {
-    if (closed || client) return;
-    let c: pg.PoolClient | undefined;
-    try {
-      c = await pool.connect();
-      const mine = c;
-      client = c;
-      c.on("notification", (msg) => {
-        if (msg.channel === SESSION_CHANNEL) cache.hear(msg.payload ?? "*");
-      });
-      c.on("error", () => lost(mine));
-      c.on("end", () => lost(mine));
-      await c.query(`LISTEN ${SESSION_CHANNEL}`);
-      if (closed || client !== c) return;
-      cache.setListening(true);
-    } catch (err) {
-      if (c && client === c) lost(c);
-      else {
-        log.warn({ err: (err as Error).message }, "session cache: cannot listen for session changes yet; reading every session from the database meanwhile");
-        schedule();
-      }
-    }
-  }
-  void connect();
-
-  return {
-    close() {
-      closed = true;
-      if (retry) clearTimeout(retry);
-      cache.setListening(false);
-      client?.release(true);
-      client = undefined;
-    },
-  };
+export function listenForSessionChanges(pool: pg.Pool, cache: SessionCache, log: { warn: (o: object, m: string) => void }, retryMs = 1000): NotificationListener {
+  return listenOn(pool, SESSION_CHANNEL, { onNotification: (payload) => cache.hear(payload), onListening: (listening) => cache.setListening(listening) }, log, retryMs);
 }

@@ -1,6 +1,7 @@
 import type pg from "pg";
 import { sql } from "drizzle-orm";
 import type { DbOrTx } from "../db/client.js";
+import { listenOn, type NotificationListener } from "./notificationListener.js";
 
 /** The PostgreSQL channel every change is announced on. */
 export const LIVE_CHANNEL = "isobatch_changes";
@@ -17,56 +18,31 @@ export async function announce(tx: DbOrTx, change: Change): Promise<void> {
 }
 
 /**
- * Listens on one dedicated connection and hands each change to the subscribers (the
- * server-sent-event streams). Reconnects by itself when the database comes back.
+ * Hands each announced change to the subscribers (the server-sent-event streams), listening on
+ * one dedicated connection from the first subscription on (`listenOn` reconnects by itself).
  */
 export function createChangeFeed(pool: pg.Pool, log: { warn: (o: object, m: string) => void }) {
   const subscribers = new Set<(c: Change) => void>();
-  let client: pg.PoolClient | undefined;
-  let closed = false;
-  let retry: NodeJS.Timeout | undefined;
-
-  async function connect() {
-    if (closed || client) return;
+  let listener: NotificationListener | undefined;
+  const deliver = (payload: string) => {
+    let change: Change;
     try {
-      const c = await pool.connect();
-      client = c;
-      c.on("notification", (msg) => {
-        if (!msg.payload) return;
-        try {
-          const change = JSON.parse(msg.payload) as Change;
-          for (const s of subscribers) s(change);
-        } catch {
-          /* not ours */
-        }
-      });
-      c.on("error", () => {
-        client = undefined;
-        c.release(true);
-        schedule();
-      });
-      await c.query(`LISTEN ${LIVE_CHANNEL}`);
-    } catch (err) {
-      client = undefined;
-      log.warn({ err: (err as Error).message }, "live updates: cannot listen yet; retrying");
-      schedule();
+      change = JSON.parse(payload) as Change;
+    } catch {
+      return; // not ours
     }
-  }
-  const schedule = () => {
-    if (!closed) retry = setTimeout(connect, 2000);
+    for (const s of subscribers) s(change);
   };
 
   return {
     subscribe(fn: (c: Change) => void) {
       subscribers.add(fn);
-      void connect();
+      listener ??= listenOn(pool, LIVE_CHANNEL, { onNotification: deliver }, log, 2000);
       return () => subscribers.delete(fn);
     },
     close() {
-      closed = true;
-      if (retry) clearTimeout(retry);
-      client?.release(true);
-      client = undefined;
+      listener?.close();
+      listener = undefined;
     },
   };
 }
