@@ -17,7 +17,7 @@ export interface RateModelAtConditions {
 /** Conversion XA at each time (s) from the model. */
 export function predictConversion(model: RateModelAtConditions, t: ArrayLike<number>): Float64Array {
   const X = new Float64Array(t.length);
-  fillConversion(model, checkedScale(model), t, 0, X);
+  fillConversion(model, checkedScale(model), t, X);
   return X;
 }
 
@@ -40,7 +40,7 @@ export function predictVolume(model: RateModelAtConditions, t: ArrayLike<number>
     if (done < t.length) carriedVolumes(order, scale, model.V0, model.epsilonA, t, done, V);
     return V;
   }
-  fillConversion(model, scale, t, 0, V);
+  fillConversion(model, scale, t, V);
   const amplitude = model.V0 * model.epsilonA;
   for (let i = 0; i < V.length; i++) V[i] = model.V0 + amplitude * V[i];
   return V;
@@ -56,13 +56,13 @@ function checkedScale(model: RateModelAtConditions): number {
   return scale;
 }
 
-/** Writes the conversion at t[start…] into X[start…]. */
-function fillConversion(model: RateModelAtConditions, scale: number, t: ArrayLike<number>, start: number, X: Float64Array): void {
+/** Writes the conversion at each time into X. */
+function fillConversion(model: RateModelAtConditions, scale: number, t: ArrayLike<number>, X: Float64Array): void {
   let tMax = 0;
-  for (let i = start; i < t.length; i++) if (t[i] > tMax) tMax = t[i];
+  for (let i = 0; i < t.length; i++) if (t[i] > tMax) tMax = t[i];
   const kernel = createConversionKernel(model.order, model.epsilonA, scale * tMax);
   const rate = new Float64Array(BLOCK_POINTS);
-  for (let from = start; from < t.length; from += BLOCK_POINTS) {
+  for (let from = 0; from < t.length; from += BLOCK_POINTS) {
     const to = Math.min(t.length, from + BLOCK_POINTS);
     kernel.fill(scale, t, from, to, X.subarray(from, to), rate, null);
   }

@@ -159,7 +159,6 @@ export function secondOrderVolumes(V0: number, epsilonA: number, scale: number, 
     const tau = scale * t[i];
     let d = tau - anchorTau;
     if (!(d >= 0 && d <= reach)) {
-      const d2 = d * d;
       anchor.moveTo(tau);
       c0 = c[0]; c1 = c[1]; c2 = c[2]; c3 = c[3]; c4 = c[4]; c5 = c[5]; c6 = c[6];
       anchorTau = tau;

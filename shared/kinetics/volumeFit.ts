@@ -39,8 +39,8 @@ export function fitVolumes(trace: Trace, options: VolumeFitOptions): FitResult {
  * spare, which saves a separate read of the trace. Undefined when a point needs the exact rules.
  */
 function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolean): FitResult | undefined {
-  const order = options.order;
-  if (fitOrder || !(order === 0 || order === 1 || order === 2)) return undefined;
+  const order = closedFormOrder(options, fitOrder);
+  if (order === undefined) return undefined;
   if (!(trace.t instanceof Float64Array && trace.V instanceof Float64Array)) return undefined;
   const n = Math.min(trace.t.length, trace.V.length);
   const rules = { V0: options.V0, epsilonA: options.epsilonA };
@@ -126,10 +126,16 @@ function startingParams(coarse: { t: Float64Array; V: Float64Array }, setup: Vol
  * fused pass per step; undefined (so the full LM runs) when a step fails to lower the residuals.
  */
 function refineDirectly({ t, V, setup, fitOrder }: VolumeProblem, start: number[]): VolumeSolution | undefined {
-  const order = setup.order;
-  if (fitOrder || !(order === 0 || order === 1 || order === 2)) return undefined;
+  const order = closedFormOrder(setup, fitOrder);
+  if (order === undefined) return undefined;
   const fast = refineClosedForm({ order, t, V, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0 }, start[0], STEP_TOLERANCE);
   return fast.outcome === "converged" ? closedFormSolution(fast) : undefined;
+}
+
+/** The order when it is 0, 1 or 2 and fixed: the orders the closed-form refinement serves. */
+function closedFormOrder(setup: VolumeFitOptions, fitOrder: boolean): 0 | 1 | 2 | undefined {
+  const order = setup.order;
+  return !fitOrder && (order === 0 || order === 1 || order === 2) ? order : undefined;
 }
 
 function closedFormSolution({ k, residuals, ssr, sst, jtj, steps }: ClosedFormSolution): VolumeSolution {
