@@ -1,7 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it, vi } from "vitest";
 import pg from "pg";
 import request from "supertest";
-import { inject } from "vitest";
 import { Client, startTestApp, type TestApp } from "../../support/testApp.js";
 import { buildPerson } from "../../factories.js";
 
@@ -35,12 +34,10 @@ afterAll(async () => {
   await t.close();
 });
 
-async function until(done: () => boolean | Promise<boolean>, limitMs = 3000) {
+/** Waits until `done` holds (vitest's waitUntil); the milliseconds it took. */
+async function until(done: () => boolean | Promise<boolean>, timeout = 3000) {
   const start = Date.now();
-  while (!(await done())) {
-    if (Date.now() - start > limitMs) throw new Error(`not within ${limitMs} ms`);
-    await new Promise((r) => setTimeout(r, 10));
-  }
+  await vi.waitUntil(done, { timeout, interval: 10 });
   return Date.now() - start;
 }
 

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it, vi } from "vitest";
 import pg from "pg";
 import { listenOn } from "../../../server/services/notificationListener.js";
 import { createChangeFeed, type Change } from "../../../server/services/live.js";
@@ -17,13 +17,7 @@ afterAll(async () => {
   await pool.end();
 });
 
-async function until(done: () => boolean, limitMs = 5000) {
-  const start = Date.now();
-  while (!done()) {
-    if (Date.now() - start > limitMs) throw new Error(`not within ${limitMs} ms`);
-    await new Promise((r) => setTimeout(r, 10));
-  }
-}
+const until = (done: () => boolean) => vi.waitUntil(done, { timeout: 5000, interval: 10 });
 
 describe("listenOn", () => {
   it("hands over its channel's payloads, says when it listens, and listens again after losing its connection", async () => {
