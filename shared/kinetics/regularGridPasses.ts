@@ -29,88 +29,197 @@ export function gridPass(setup: PassSetup, grid: RegularGrid, residuals: Float64
 
 /*
  * Both loops start each ANCHOR_EVERY points from an exact exponential at the grid time, which
- * bounds the rounding the factor carries; past full conversion (order 0) the model is flat.
+ * bounds the rounding the factor carries. A block that ends before full conversion (every block
+ * at order 1) runs in the pass's own loop, with no per-point branch on the model; a block that
+ * reaches full conversion (order 0) goes to a loop that tests each point, flat after it. Since
+ * direction·q only grows along the grid, a block is rising when its last q is below the flat,
+ * judged from its first q and the factor over a whole block. Keeping the rising loop inline
+ * rather than in a function per block made both passes about a tenth faster (measured).
  */
+
+/** The model's constants per block, and the sums of the blocks that reach full conversion. */
+class GridBlocks {
+  readonly factor: number;
+  /** factor^(ANCHOR_EVERY − 1): from a block's first q to its last (or beyond, for a short block). */
+  readonly across: number;
+  readonly sums = new LoopSums();
+
+  constructor(readonly model: ExponentialVolume, readonly grid: RegularGrid) {
+    this.factor = Math.exp(model.rate * grid.h);
+    this.across = Math.exp(model.rate * grid.h * (ANCHOR_EVERY - 1));
+  }
+
+  /** q at the block starting at point `from`, taken afresh. */
+  firstQ(from: number): number {
+    return this.model.base * Math.exp(this.model.rate * (this.grid.t0 + from * this.grid.h));
+  }
+
+  rising(q: number): boolean {
+    return this.model.direction * q * this.across < this.model.flatAt;
+  }
+}
 
 function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, guard: PointGuard, out: LoopSums): GridPassOutcome {
   const { t, V } = s;
   const n = t.length;
-  const rate = unboxed(model.rate), base = unboxed(model.base), offset = unboxed(model.offset), full = unboxed(model.full);
-  const direction = unboxed(model.direction), flatAt = unboxed(model.flatAt);
-  const t0 = unboxed(grid.t0);
-  const h = unboxed(grid.h);
+  const t0 = unboxed(grid.t0), h = unboxed(grid.h);
   const tolerance = GRID_TAU_TOLERANCE / s.scale;
-  const lowV = unboxed(guard.lowV);
-  const highV = unboxed(guard.highV);
-  const factor = Math.exp(rate * h);
-  let ssr = 0, gg = 0, gr = 0;
   // A time within the tolerance of its grid time is finite; with t[0] ≥ 0, t0 ≥ 0 and steps wider
   // than twice the tolerance, none is negative: so only the volumes need the guard at each point.
   if (!(t0 >= 0 && t0 <= LARGEST && (n === 0 || t[0] >= 0))) return "outside guard";
   if (!(h > 2 * tolerance)) return "off grid";
+  const blocks = new GridBlocks(model, grid);
+  const offset = unboxed(model.offset), factor = unboxed(blocks.factor);
+  const lowV = unboxed(guard.lowV), highV = unboxed(guard.highV);
+  const tolerance2 = tolerance * tolerance;
+  let ssr = 0, gg = 0, gr = 0;
   for (let from = 0; from < n; from += ANCHOR_EVERY) {
     const to = Math.min(n, from + ANCHOR_EVERY);
     const anchor = t0 + from * h;
-    let q = base * Math.exp(rate * anchor);
-    let steps = 0;
-    for (let i = from; i < to; i++) {
-      const ti = t[i];
-      const v = V[i];
-      const off = ti - (anchor + steps * h);
-      if (!(off <= tolerance && off >= -tolerance)) return "off grid";
-      if (!(v > lowV && v < highV)) return "outside guard";
-      if (direction * q >= flatAt) {
-        const r = v - full;
-        ssr += r * r;
-      } else {
-        const r = v - offset - q;
-        const g = q * ti;
+    const q = blocks.firstQ(from);
+    let stop = to;
+    if (!blocks.rising(q)) stop = checkedBlock(t, V, from, to, q, blocks, tolerance, guard);
+    else {
+      let qi = q;
+      for (let i = from; i < to; i++) {
+        const ti = t[i], v = V[i];
+        const off = ti - (anchor + (i - from) * h);
+        if (!(off * off <= tolerance2 && (v - lowV) * (highV - v) > 0)) {
+          stop = i;
+          break;
+        }
+        const r = v - offset - qi, g = qi * ti;
         ssr += r * r;
         gg += g * g;
         gr += g * r;
+        qi *= factor;
       }
-      q *= factor;
-      steps++;
     }
+    if (stop < to) return offGrid(t[stop], anchor + (stop - from) * h, tolerance) ? "off grid" : "outside guard";
   }
   const slope = model.slope;
-  keep(out, ssr, slope * slope * gg, slope * gr, 0, 0);
+  const sums = blocks.sums;
+  keep(out, ssr + sums.ssr, slope * slope * (gg + sums.gg), slope * (gr + sums.gr), 0, 0);
   return "complete";
 }
 
+function offGrid(time: number, gridTime: number, tolerance: number): boolean {
+  const off = time - gridTime;
+  return !(off <= tolerance && off >= -tolerance);
+}
+
+/*
+ * The checked pass tests each point of a rising block with one branch: off² ≤ tolerance² for the grid (false for
+ * NaN), and (v − low)·(high − v) > 0 for the guard, which is false for NaN, ±∞ and anything
+ * outside the open interval. The grid test agrees with |off| ≤ tolerance up to the rounding of
+ * the squares; the guard test can only be stricter (a product that underflows), which sends the
+ * trace to the exact route and never lets a bad point through.
+ */
+
+/** The checked sums over points from…to−1 of a block that reaches full conversion (order 0): flat from there on. */
+function checkedBlock(t: Float64Array, V: Float64Array, from: number, to: number, q: number, blocks: GridBlocks, tolerance: number, guard: PointGuard): number {
+  const { model } = blocks;
+  const h = unboxed(blocks.grid.h), factor = unboxed(blocks.factor);
+  const anchor = unboxed(blocks.grid.t0) + from * h;
+  const offset = unboxed(model.offset), full = unboxed(model.full), direction = unboxed(model.direction), flatAt = unboxed(model.flatAt);
+  const lowV = unboxed(guard.lowV), highV = unboxed(guard.highV);
+  let ssr = 0, gg = 0, gr = 0;
+  let qi = q + 0;
+  for (let i = from; i < to; i++) {
+    const ti = t[i];
+    const v = V[i];
+    if (offGrid(ti, anchor + (i - from) * h, tolerance) || !(v > lowV && v < highV)) return i;
+    if (direction * qi >= flatAt) {
+      const r = v - full;
+      ssr += r * r;
+    } else {
+      const r = v - offset - qi;
+      const g = qi * ti;
+      ssr += r * r;
+      gg += g * g;
+      gr += g * r;
+    }
+    qi *= factor;
+  }
+  const sums = blocks.sums;
+  sums.ssr += ssr;
+  sums.gg += gg;
+  sums.gr += gr;
+  return to;
+}
+
+/*
+ * The residual loops follow a checked pass, so they take each point's time as its grid time
+ * (within the tolerance the checked pass proved) and read only the volumes.
+ */
+
 function residualLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, residuals: Float64Array, out: LoopSums): void {
-  const { t, V } = s;
-  const n = t.length;
-  const rate = unboxed(model.rate), base = unboxed(model.base), offset = unboxed(model.offset), full = unboxed(model.full);
-  const direction = unboxed(model.direction), flatAt = unboxed(model.flatAt);
-  const t0 = unboxed(grid.t0);
-  const h = unboxed(grid.h);
-  const factor = Math.exp(rate * h);
+  const { V } = s;
+  const n = s.t.length;
   const shift = n > 0 ? V[0] : 0;
+  const blocks = new GridBlocks(model, grid);
+  const t0 = unboxed(grid.t0), h = unboxed(grid.h);
+  const offset = unboxed(model.offset), factor = unboxed(blocks.factor);
   let ssr = 0, gg = 0, gr = 0, sum = 0, squares = 0;
   for (let from = 0; from < n; from += ANCHOR_EVERY) {
     const to = Math.min(n, from + ANCHOR_EVERY);
-    let q = base * Math.exp(rate * (t0 + from * h));
+    const q = blocks.firstQ(from);
+    if (!blocks.rising(q)) {
+      blockResiduals(V, residuals, from, to, q, blocks, shift);
+      continue;
+    }
+    let time = t0 + from * h;
+    let qi = q;
     for (let i = from; i < to; i++) {
       const v = V[i];
-      if (direction * q >= flatAt) {
-        const r = v - full;
-        residuals[i] = r;
-        ssr += r * r;
-      } else {
-        const r = v - offset - q;
-        const g = q * t[i];
-        residuals[i] = r;
-        ssr += r * r;
-        gg += g * g;
-        gr += g * r;
-      }
+      const r = v - offset - qi, g = qi * time;
+      residuals[i] = r;
+      ssr += r * r;
+      gg += g * g;
+      gr += g * r;
       const d = v - shift;
       sum += d;
       squares += d * d;
-      q *= factor;
+      qi *= factor;
+      time += h;
     }
   }
   const slope = model.slope;
-  keep(out, ssr, slope * slope * gg, slope * gr, sum, squares);
+  const sums = blocks.sums;
+  keep(out, ssr + sums.ssr, slope * slope * (gg + sums.gg), slope * (gr + sums.gr), sum + sums.sum, squares + sums.squares);
+}
+
+function blockResiduals(V: Float64Array, residuals: Float64Array, from: number, to: number, q: number, blocks: GridBlocks, shift: number): void {
+  const { model } = blocks;
+  const h = unboxed(blocks.grid.h), factor = unboxed(blocks.factor);
+  const offset = unboxed(model.offset), full = unboxed(model.full), direction = unboxed(model.direction), flatAt = unboxed(model.flatAt);
+  let time = unboxed(blocks.grid.t0) + from * h;
+  let qi = q + 0;
+  let ssr = 0, gg = 0, gr = 0, sum = 0, squares = 0;
+  for (let i = from; i < to; i++) {
+    const v = V[i];
+    if (direction * qi >= flatAt) {
+      const r = v - full;
+      residuals[i] = r;
+      ssr += r * r;
+    } else {
+      const r = v - offset - qi;
+      const g = qi * time;
+      residuals[i] = r;
+      ssr += r * r;
+      gg += g * g;
+      gr += g * r;
+    }
+    const d = v - shift;
+    sum += d;
+    squares += d * d;
+    qi *= factor;
+    time += h;
+  }
+  const sums = blocks.sums;
+  sums.ssr += ssr;
+  sums.gg += gg;
+  sums.gr += gr;
+  sums.sum += sum;
+  sums.squares += squares;
 }
