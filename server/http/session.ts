@@ -62,7 +62,8 @@ export function sessionMiddleware(opts: SessionOptions) {
       cookie: { httpOnly: true, sameSite: "lax", secure: opts.secureCookie, maxAge: 12 * 60 * 60_000 },
     }),
     idleTimeout(idleMs),
-    instance.initialize(),
+    // No passport.initialize(): since passport 0.6 the session middleware sets req.logIn and the
+    // rest itself, and initialize() only adds req._passport for strategies older than that.
     instance.session(),
     csrfCheck,
   ];
