@@ -34,7 +34,7 @@ export class ClosedFormPassRunner {
   first(k: number, sums: PassSums): boolean {
     const guard: PointGuard = this.data.guard ?? OPEN_GUARD;
     const setup = this.setupAt(k);
-    this.grid = this.data.order === 2 ? undefined : likelyGrid(this.data.t, setup.scale);
+    this.grid = likelyGrid(this.data.t, setup.scale);
     if (this.grid !== undefined) {
       const outcome = gridPass(setup, this.grid, null, sums, guard);
       if (outcome !== "off grid") return outcome === "complete";

@@ -1,12 +1,14 @@
 import { ANCHOR_EVERY, ExponentialVolume } from "./exponentialVolumes.js";
 import { finishSums, keep, LARGEST, LoopSums, unboxed, type PassSetup, type PassSums, type PointGuard } from "./passBasics.js";
 import { GRID_TAU_TOLERANCE, type RegularGrid } from "./regularGrid.js";
+import { secondOrderGridResiduals, secondOrderGridSums } from "./secondOrderGridPasses.js";
 
 /**
- * Fused passes for orders 0 and 1 when the times lie on a regular grid t_i = t0 + i·h, as a
- * logger's do: the exponential is then carried from point to point by one constant factor
- * e^(rate·h), with no series per point. A checked pass proves the grid (and the guard) for
- * every point first; the passes after it at nearby k rely on that proof.
+ * Fused passes when the times lie on a regular grid t_i = t0 + i·h, as a logger's do. At orders
+ * 0 and 1 the exponential is then carried from point to point by one constant factor e^(rate·h),
+ * with no series per point; order 2 has its own loops (secondOrderGridPasses.ts). A checked
+ * pass proves the grid (and the guard) for every point first; the passes after it at nearby k
+ * rely on that proof.
  */
 
 export type GridPassOutcome = "complete" | "outside guard" | "off grid";
@@ -17,12 +19,16 @@ export type GridPassOutcome = "complete" | "outside guard" | "off grid";
  * them and fills sums.sst, trusting an earlier checked pass.
  */
 export function gridPass(setup: PassSetup, grid: RegularGrid, residuals: Float64Array | null, sums: PassSums, guard: PointGuard): GridPassOutcome {
-  if (setup.order === 2) throw new Error("gridPass: orders 0 and 1 only");
   const out = new LoopSums();
-  const model = new ExponentialVolume(setup.order, setup.scale, setup.V0, setup.epsilonA);
   let outcome: GridPassOutcome = "complete";
-  if (residuals === null) outcome = checkedLoop(setup, grid, model, guard, out);
-  else residualLoop(setup, grid, model, residuals, out);
+  if (setup.order === 2) {
+    if (residuals === null) outcome = secondOrderGridSums(setup, grid, guard, out);
+    else secondOrderGridResiduals(setup, grid, residuals, out);
+  } else {
+    const model = new ExponentialVolume(setup.order, setup.scale, setup.V0, setup.epsilonA);
+    if (residuals === null) outcome = checkedLoop(setup, grid, model, guard, out);
+    else residualLoop(setup, grid, model, residuals, out);
+  }
   finishSums(setup, out, residuals !== null, sums);
   return outcome;
 }

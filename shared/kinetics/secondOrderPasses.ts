@@ -9,7 +9,7 @@ import { SECOND_ORDER_DEGREE, secondOrderCoefficients, secondOrderConversion, se
  */
 
 /** The anchor's Taylor coefficients of the model volume, and where it sits and reaches. */
-class SecondOrderAnchor {
+export class SecondOrderAnchor {
   private readonly a = new Float64Array(SECOND_ORDER_DEGREE + 1);
   /** V0 + V0·εA·a[0], then V0·εA·a[j]. */
   readonly volume = new Float64Array(SECOND_ORDER_DEGREE + 1);

@@ -11,7 +11,7 @@ const V0 = 2;
 const CA0 = initialConcentrationGas(0.7, 2e5, 523.15);
 const POINTS = 30_000;
 const scaleFor = (order: number, k: number) => k * Math.pow(CA0, order - 1);
-const setupFor = (order: 0 | 1, t: Float64Array, V: Float64Array, epsilonA: number, k: number) => ({
+const setupFor = (order: 0 | 1 | 2, t: Float64Array, V: Float64Array, epsilonA: number, k: number) => ({
   order, t, V, V0, epsilonA, scale: scaleFor(order, k), kFactor: V0 * epsilonA * Math.pow(CA0, order - 1),
 });
 const evenTimes = (points: number, duration: number) => Float64Array.from({ length: points }, (_, i) => (i * duration) / (points - 1));
@@ -25,11 +25,11 @@ function noisyVolumes(order: number, epsilonA: number, k: number, t: Float64Arra
   return V;
 }
 
-const CASES = ([0, 1] as const).flatMap((order) => [-0.5, 0.3, 0.7, 2].map((epsilonA) => [order, epsilonA] as const));
+const CASES = ([0, 1, 2] as const).flatMap((order) => [-0.5, 0.3, 0.7, 2].map((epsilonA) => [order, epsilonA] as const));
 
 describe("passes on a regular time grid", () => {
   it.each(CASES)("order %i, εA = %f: model volumes match odex (independent ODE solver)", (order, epsilonA) => {
-    const k = order === 0 ? 1.6e-4 * CA0 : 1.2e-3;
+    const k = order === 0 ? 1.6e-4 * CA0 : 1.2e-3 / Math.pow(CA0, order - 1);
     const t = evenTimes(POINTS, 3000);
     const V = new Float64Array(POINTS);
     const grid = likelyGrid(t, scaleFor(order, k));
@@ -47,7 +47,7 @@ describe("passes on a regular time grid", () => {
   });
 
   it.each(CASES)("order %i, εA = %f: residuals and sums equal the general pass's at the same k", (order, epsilonA) => {
-    const k = order === 0 ? 6e-4 * CA0 : 6e-4;
+    const k = order === 0 ? 6e-4 * CA0 : 6e-4 / Math.pow(CA0, order - 1);
     const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
     const V = noisyVolumes(order, epsilonA, k, t, 1e-3);
     const setup = setupFor(order, t, V, epsilonA, k);
@@ -73,17 +73,19 @@ describe("passes on a regular time grid", () => {
     expect(Math.abs(checkedJtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
   });
 
-  it("the checked pass stops at a point off the grid or outside the guard, and says which", () => {
-    const k = 6e-4;
+  it.each([0, 1, 2] as const)("order %i: the checked pass stops at a point off the grid or outside the guard, and says which", (order) => {
+    const k = 6e-4 / Math.pow(CA0, order - 1);
     const t = evenTimes(POINTS, 3600);
-    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
-    const grid = likelyGrid(t, k)!;
+    const V = noisyVolumes(order, 0.7, k, t, 1e-3);
+    const grid = likelyGrid(t, scaleFor(order, k))!;
     const sums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
     const moved = Float64Array.from(t);
     moved[12_345] += 1e-6;
-    expect(gridPass(setupFor(1, moved, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("off grid");
-    expect(gridPass(setupFor(1, t, V, 0.7, k), grid, null, sums, { lowV: -Infinity, highV: V[20_000] })).toBe("outside guard");
-    expect(gridPass(setupFor(1, t, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("complete");
+    expect(gridPass(setupFor(order, moved, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("off grid");
+    // The guard's upper limit at a volume the trace passes part way.
+    const limit = V[20_000];
+    expect(gridPass(setupFor(order, t, V, 0.7, k), grid, null, sums, { lowV: -Infinity, highV: limit })).toBe("outside guard");
+    expect(gridPass(setupFor(order, t, V, 0.7, k), grid, null, sums, OPEN_GUARD)).toBe("complete");
   });
 
   it("the checked pass judges the times by the grid: a missing time is off the grid, a negative start outside the guard", () => {
@@ -144,11 +146,12 @@ describe("fitVolumes on many points takes the same k by every route", () => {
   const relative = (a: number, b: number) => Math.abs(a / b - 1);
   const plainCopy = (x: Float64Array) => Array.from(x);
 
-  it("on a regular grid", () => {
-    const t = evenTimes(POINTS, 3600);
-    const V = noisyVolumes(1, 0.7, k, t, 1e-3);
-    const fast = fitVolumes({ t, V }, { order: 1, V0, epsilonA: 0.7 });
-    const exact = fitVolumes({ t: plainCopy(t), V: plainCopy(V) }, { order: 1, V0, epsilonA: 0.7 });
+  it.each([0, 1, 2] as const)("order %i on a regular grid", (order) => {
+    const kk = k / Math.pow(CA0, order - 1);
+    const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
+    const V = noisyVolumes(order, 0.7, kk, t, 1e-3);
+    const fast = fitVolumes({ t, V }, { order, V0, epsilonA: 0.7, cA0: CA0 });
+    const exact = fitVolumes({ t: plainCopy(t), V: plainCopy(V) }, { order, V0, epsilonA: 0.7, cA0: CA0 });
     expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
     expect(relative(fast.residualRms, exact.residualRms)).toBeLessThan(1e-9);
     expect(fast.points).toBe(POINTS);
