@@ -37,13 +37,16 @@ export function findExcursions(
   centre: number,
   halfWidth: number,
 ): BandExcursion | undefined {
+  // Usually every point is inside: one quick read proves it, and only a series with an
+  // excursion is read again to count and place them.
+  if (allInBand(values, centre, halfWidth)) return undefined;
   let count = 0;
   let worst = 0;
   let worstValue = Number.NaN;
   let worstTime = Number.NaN;
   for (let i = 0; i < values.length; i++) {
     const off = Math.abs(values[i] - centre);
-    if (off > halfWidth || Number.isNaN(off)) {
+    if (!(off <= halfWidth)) {
       count++;
       if (off > worst || Number.isNaN(worstValue)) {
         worst = off;
@@ -52,32 +55,62 @@ export function findExcursions(
       }
     }
   }
-  return count === 0 ? undefined : { count, of: values.length, worstValue, worstTime };
+  return { count, of: values.length, worstValue, worstTime };
+}
+
+/** True when |value − centre| ≤ halfWidth for every value (false at a NaN). */
+function allInBand(values: ArrayLike<number>, centre: number, halfWidth: number): boolean {
+  const n = values.length;
+  for (let i = 0; i < n; i++) {
+    const off = values[i] - centre;
+    if (!(off <= halfWidth && off >= -halfWidth)) return false;
+  }
+  return true;
+}
+
+export interface VolumeFaults {
+  pastFull: number;
+  against: number;
+  extremeV: number;
+  againstV: number;
 }
 
 /** Counts points moving the wrong way or beyond full conversion, allowing `allowance` L of noise. */
-export function volumeDirectionFaults(
-  V: ArrayLike<number>,
-  V0: number,
-  epsilonA: number,
-  allowance: number,
-): { pastFull: number; against: number; extremeV: number; againstV: number } {
+export function volumeDirectionFaults(V: ArrayLike<number>, V0: number, epsilonA: number, allowance: number): VolumeFaults {
   const sign = Math.sign(epsilonA);
   const full = V0 * (1 + epsilonA);
-  let pastFull = 0;
-  let against = 0;
-  let extremeV = Number.NaN;
-  let againstV = Number.NaN;
-  for (let i = 0; i < V.length; i++) {
+  const faults: VolumeFaults = { pastFull: 0, against: 0, extremeV: Number.NaN, againstV: Number.NaN };
+  // As with the bands: a quick read finds the first fault, if any, and the count starts there.
+  const n = V.length;
+  let first = 0;
+  while (first < n && !(sign * (V[first] - full) > allowance || sign * (V[first] - V0) < -allowance)) first++;
+  for (let i = first; i < n; i++) {
     const v = V[i];
     if (sign * (v - full) > allowance) {
-      pastFull++;
-      if (Number.isNaN(extremeV) || sign * (v - extremeV) > 0) extremeV = v;
+      faults.pastFull++;
+      if (Number.isNaN(faults.extremeV) || sign * (v - faults.extremeV) > 0) faults.extremeV = v;
     }
     if (sign * (v - V0) < -allowance) {
-      against++;
-      if (Number.isNaN(againstV) || sign * (v - againstV) < 0) againstV = v;
+      faults.against++;
+      if (Number.isNaN(faults.againstV) || sign * (v - faults.againstV) < 0) faults.againstV = v;
     }
   }
-  return { pastFull, against, extremeV, againstV };
+  return faults;
+}
+
+/**
+ * The highest conversion (V − V0)/(εA·V0) over the volumes, ignoring NaN; −∞ when there is none.
+ * The conversion rises with V for εA > 0 and falls for εA < 0, so it is that of the largest or
+ * the smallest volume, converted once.
+ */
+export function highestConversion(V: ArrayLike<number>, V0: number, epsilonA: number): number {
+  const n = V.length;
+  let largest = Number.NEGATIVE_INFINITY;
+  let smallest = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < n; i++) {
+    const v = V[i];
+    if (v > largest) largest = v;
+    if (v < smallest) smallest = v;
+  }
+  return (epsilonA > 0 ? largest - V0 : smallest - V0) / (epsilonA * V0);
 }

@@ -1,6 +1,6 @@
 import { fromSI } from "../units/index.js";
 import { arrheniusRateConstant } from "./arrhenius.js";
-import { findExcursions, show, volumeDirectionFaults, type CheckReason } from "./checkReasons.js";
+import { findExcursions, highestConversion, show, volumeDirectionFaults, type CheckReason } from "./checkReasons.js";
 import { initialConcentrationGas } from "./conversion.js";
 import type { FitResult } from "./fitResult.js";
 import { KineticsInputError } from "./kineticsInputError.js";
@@ -113,11 +113,7 @@ export function checkTrace(input: { model: ApprovedRateModel; conditions: BatchC
       message: `${faults.against} point(s) move the volume ${eps > 0 ? "below" : "above"} V0 = ${show(V0)} L by more than ${show(allowance)} L (furthest ${show(faults.againstV)} L), against the sign of εA = ${show(eps)}.`,
     });
   }
-  let maxConversion = Number.NEGATIVE_INFINITY;
-  for (let i = 0; i < trace.V.length; i++) {
-    const X = (trace.V[i] - V0) / (eps * V0);
-    if (X > maxConversion) maxConversion = X;
-  }
+  const maxConversion = highestConversion(trace.V, V0, eps);
   const minConversion = model.minConversion ?? 0.1;
   if (!(maxConversion >= minConversion)) {
     reasons.push({

@@ -24,22 +24,26 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
   const { V0, epsilonA } = rules;
   const cap = rules.maxConversion;
   const n = Math.min(trace.t.length, trace.V.length);
-  if (trace.t instanceof Float64Array && trace.V instanceof Float64Array && allClearlyUsable(trace.t, trace.V, n, rules)) {
-    return { t: trace.t.subarray(0, n), V: trace.V.subarray(0, n), excluded: 0, warnings: [] };
-  }
-  // One pass straight into arrays sized for every point; the result views the part filled.
+  const typed = trace.t instanceof Float64Array && trace.V instanceof Float64Array;
+  const clear = typed ? clearlyUsablePrefix(trace.t as Float64Array, trace.V as Float64Array, n, rules) : 0;
+  if (clear === n && typed) return { t: (trace.t as Float64Array).subarray(0, n), V: (trace.V as Float64Array).subarray(0, n), excluded: 0, warnings: [] };
+  // Into arrays sized for every point, the result viewing the part filled: the points before the
+  // first that needs a closer look in one block copy, the rest one by one.
   const { t, V } = buffers?.take(n) ?? { t: new Float64Array(n), V: new Float64Array(n) };
   const counts = new SelectionCounts();
-  if (trace.t instanceof Float64Array && trace.V instanceof Float64Array) sortTypedPoints(trace.t, trace.V, n, rules, t, V, counts);
-  else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
+  if (typed) {
+    const tIn = trace.t as Float64Array, vIn = trace.V as Float64Array;
+    t.set(tIn.subarray(0, clear));
+    V.set(vIn.subarray(0, clear));
+    counts.kept = clear;
+    sortTypedPoints(tIn, vIn, clear, n, rules, t, V, counts);
+  } else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
   const { kept, pastFull, pastCap, invalid } = counts;
   const warnings: string[] = [];
   if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
   if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
   if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
-  if (kept === n && trace.t instanceof Float64Array && trace.V instanceof Float64Array) {
-    return { t: trace.t.subarray(0, n), V: trace.V.subarray(0, n), excluded: 0, warnings };
-  }
+  if (kept === n && typed) return { t: (trace.t as Float64Array).subarray(0, n), V: (trace.V as Float64Array).subarray(0, n), excluded: 0, warnings };
   return { t: t.subarray(0, kept), V: V.subarray(0, kept), excluded: n - kept, warnings };
 }
 
@@ -86,11 +90,11 @@ class SelectionCounts {
 }
 
 /**
- * sortPoint for every point of typed arrays: points clearly inside the usable range, clearly
+ * sortPoint for the points from…n−1 of typed arrays: points clearly inside the usable range, clearly
  * past full conversion or clearly past the cap are decided by comparisons alone; only those
  * near a limit (or invalid) take the exact rule.
  */
-function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
+function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   const cap = rules.maxConversion;
   const keep = clearVolumeLimits(rules) ?? NONE;
   const past = clearlyBetween(rules, 1, Number.POSITIVE_INFINITY) ?? NONE;
@@ -99,10 +103,10 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, n: number, rules:
   const keepLow = keep.lowV + 0, keepHigh = keep.highV + 0;
   const pastLow = past.lowV + 0, pastHigh = past.highV + 0;
   const capLow = capped.lowV + 0, capHigh = capped.highV + 0;
-  let kept = 0;
+  let kept = counts.kept;
   let pastFull = 0;
   let pastCap = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = from; i < n; i++) {
     const ti = tIn[i];
     const vi = vIn[i];
     if (ti >= 0 && ti <= LARGEST) {
@@ -152,20 +156,20 @@ function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Arra
 /** Limits no value meets, for when a quick test is not safe. */
 const NONE: VolumeLimits = { lowV: Number.NaN, highV: Number.NaN };
 
-/** One quick read of the trace: true when every point is within the clear limits. */
-function allClearlyUsable(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules): boolean {
+/** One quick read of the trace: how many points from the first are within the clear limits (n when all are). */
+function clearlyUsablePrefix(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules): number {
   const limits = clearVolumeLimits(rules);
-  return limits !== undefined && allWithin(t, V, n, limits.lowV, limits.highV);
+  return limits === undefined ? 0 : prefixWithin(t, V, n, limits.lowV, limits.highV);
 }
 
-/** True when every 0 ≤ t[i] < ∞ and lowV < V[i] < highV (false for any NaN). */
-function allWithin(t: Float64Array, V: Float64Array, n: number, lowV: number, highV: number): boolean {
+/** The index of the first point without 0 ≤ t[i] < ∞ and lowV < V[i] < highV (NaN fails), or n. */
+function prefixWithin(t: Float64Array, V: Float64Array, n: number, lowV: number, highV: number): number {
   for (let i = 0; i < n; i++) {
     const ti = t[i];
     const v = V[i];
-    if (!(ti >= 0 && ti <= LARGEST && v > lowV && v < highV)) return false;
+    if (!(ti >= 0 && ti <= LARGEST && v > lowV && v < highV)) return i;
   }
-  return true;
+  return n;
 }
 
 /** Every `stride`-th point plus the last: a coarse copy for a quick first fit. */
