@@ -87,8 +87,13 @@ export function refineClosedForm(data: ClosedFormData, initialK: number, stepTol
   return giveUp("too many steps", k, k + step);
 }
 
-/** Points of the thinned copy used to estimate the bend of the Gauss–Newton step. */
-const BEND_POINTS = 4_000;
+/**
+ * Points of the thinned copy used to estimate the bend of the Gauss–Newton step: a smooth sum
+ * over the times, which 500 points give far closer than the correction needs; at order 2 each
+ * point of a sparse copy costs an anchor of its own, so fewer is cheaper (0.17 ms a pass here
+ * against 0.35 ms with 4 000 points, measured).
+ */
+const BEND_POINTS = 500;
 /** Relative change of k for the central difference. */
 const BEND_DELTA = 1e-3;
 
