@@ -41,8 +41,7 @@ export function linearisedIntegral(trace: Trace, options: LinearisedOptions): Li
   linearise(selected.V, { V0, epsilonA, order, cA0 }, y);
   const slopePerK = order === 2 ? cA0 : 1;
   // Usually every value is finite and the selected arrays serve as they are.
-  let kept = 0;
-  for (let i = 0; i < n; i++) if (Number.isFinite(y[i])) kept++;
+  const kept = finiteCount(y);
   if (kept === n) return { x: selected.t, y, V: selected.V, slopePerK, excluded: selected.excluded, warnings };
   const x = new Float64Array(kept);
   const V = new Float64Array(kept);
@@ -55,6 +54,17 @@ export function linearisedIntegral(trace: Trace, options: LinearisedOptions): Li
   }
   warnings.push(`${n - kept} point(s) with a non-finite linearised value excluded.`);
   return { x, y: finite, V, slopePerK, excluded: selected.excluded + (n - kept), warnings };
+}
+
+/** How many values are finite (x − x is 0 for a finite x, NaN for ±∞ and NaN). */
+function finiteCount(values: Float64Array): number {
+  const n = values.length;
+  let count = 0;
+  for (let i = 0; i < n; i++) {
+    const v = values[i];
+    if (v - v === 0) count++;
+  }
+  return count;
 }
 
 /** The linearised quantity of each volume into y, one loop per order. */

@@ -25,7 +25,7 @@ const ML_LIMIT = 1e5;
 /** Untimed rounds first, so every task runs optimised code when the clock starts. */
 const WARM_UP_ROUNDS = 2;
 /** Timed rounds; each figure printed is the median of these. */
-const TIMED_ROUNDS = 5;
+const TIMED_ROUNDS = 9;
 
 /**
  * Median time (ms) of each task over TIMED_ROUNDS rounds after WARM_UP_ROUNDS untimed ones. Each
