@@ -1,5 +1,5 @@
 import { keep, LARGEST, LoopSums, unboxed, type PassSetup, type PointGuard } from "./passBasics.js";
-import { SECOND_ORDER_DEGREE, secondOrderCoefficients, secondOrderConversion, secondOrderReach } from "./secondOrderSeries.js";
+import { SECOND_ORDER_DEGREE, secondOrderCoefficients, secondOrderConversion, secondOrderReach, secondOrderSingularity, type SecondOrderSingularity } from "./secondOrderSeries.js";
 
 /*
  * Second order: the model volume m from a Taylor polynomial about the latest anchor, whose
@@ -15,8 +15,11 @@ export class SecondOrderAnchor {
   readonly volume = new Float64Array(SECOND_ORDER_DEGREE + 1);
   tau = Number.NaN;
   reach = 0;
+  private readonly singularity: SecondOrderSingularity;
 
-  constructor(private readonly V0: number, private readonly eps: number) {}
+  constructor(private readonly V0: number, private readonly eps: number) {
+    this.singularity = secondOrderSingularity(eps);
+  }
 
   /**
    * Moves the anchor to τ. The exact solve starts from the present polynomial's conversion
@@ -30,7 +33,7 @@ export class SecondOrderAnchor {
     for (let j = 0; j <= SECOND_ORDER_DEGREE; j++) this.volume[j] = V0 * eps * a[j];
     this.volume[0] += V0;
     this.tau = tau;
-    this.reach = secondOrderReach(tau, eps);
+    this.reach = secondOrderReach(tau, this.singularity);
   }
 }
 
