@@ -33,6 +33,16 @@ export function reducedTimeAtConversion(X: number, order: number, epsilonA: numb
   return integrate(transformedState(X, order), order, epsilonA);
 }
 
+/**
+ * τ(X) at orders 0, 1 and 2 in closed form, for 0 ≤ X < 1 (the integral method's straight
+ * lines): ln(1 + εA·X)/εA (X when εA = 0), −ln(1 − X), and (1 + εA)·X/(1 − X) + εA·ln(1 − X).
+ */
+export function closedFormReducedTime(X: number, order: 0 | 1 | 2, epsilonA: number): number {
+  if (order === 0) return epsilonA === 0 ? X : Math.log1p(epsilonA * X) / epsilonA;
+  if (order === 1) return -Math.log1p(-X);
+  return ((1 + epsilonA) * X) / (1 - X) + epsilonA * Math.log1p(-X);
+}
+
 function integrate(wEnd: number, order: number, epsilonA: number): number {
   if (!Number.isFinite(wEnd)) return Number.NaN;
   const a = 1 - order;

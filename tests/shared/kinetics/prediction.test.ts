@@ -7,6 +7,7 @@ import {
   quinticHermite,
   reducedTimeAtConversion,
 } from "../../../shared/kinetics/index";
+import { closedFormReducedTime } from "../../../shared/kinetics/reducedTime";
 import { odexConversion } from "../../support/odexReference";
 
 const CA0 = 0.0322;
@@ -162,5 +163,16 @@ describe("numerical building blocks", () => {
     const eps = 0.7;
     expect(reducedTimeAtConversion(X, 0, eps)).toBeCloseTo(Math.log1p(eps * X) / eps, 10);
     expect(reducedTimeAtConversion(X, 2, eps)).toBeCloseTo(((1 + eps) * X) / (1 - X) + eps * Math.log(1 - X), 9);
+  });
+
+  it("closedFormReducedTime (the fits' first guess) agrees with the quadrature at n = 0, 1 and 2", () => {
+    for (const order of [0, 1, 2] as const) {
+      for (const eps of EPSILONS) {
+        for (const X of [0.05, 0.5, 0.9]) {
+          const quadrature = reducedTimeAtConversion(X, order, eps);
+          expect(Math.abs(closedFormReducedTime(X, order, eps) / quadrature - 1)).toBeLessThan(1e-9);
+        }
+      }
+    }
   });
 });
