@@ -89,31 +89,41 @@ const rows = new Map<number, Row>();
 const FIT_ORDERS: [string, number, boolean][] = [["n=0", 0, false], ["n=1", 1, false], ["n=2", 2, false], ["n=1.5", 1.5, false], ["free n", 1, true]];
 
 console.log(`Isobatch kinetics benchmark (times in ms: median of ${TIMED_ROUNDS} runs after ${WARM_UP_ROUNDS} warm-up runs, plain pass interleaved)\n`);
+// Every size's tasks run in the same rounds, so a drift in the machine's speed during the run
+// (seen here: the plain pass alone moving by 1.7×) falls on every size alike, and the growth
+// from 1e5 to 1e6 points compares times taken side by side.
+const traceSets = new Map<number, Map<number, ReturnType<typeof makeTrace>>>();
+const tasks: Record<string, () => void> = {};
+let sink = 0;
+const at = (name: string, points: number) => `${name} @${points}`;
 for (const points of SIZES) {
-  const first = makeTrace(points, 1);
-  const traces = new Map<number, ReturnType<typeof makeTrace>>([[1, first]]);
+  const traces = new Map<number, ReturnType<typeof makeTrace>>();
   for (const [, order] of FIT_ORDERS) if (!traces.has(order)) traces.set(order, makeTrace(points, order));
-  let sink = 0;
+  traceSets.set(points, traces);
+  const first = traces.get(1)!;
   // Each fit is followed by a plain pass over the same volumes, which then come from a warm
   // cache: the strict side of the comparison.
-  const tasks: Record<string, () => void> = {};
   for (const [label, order, fitOrder] of FIT_ORDERS) {
     const data = traces.get(order)!;
     const options = { order, fitOrder, V0, epsilonA: EPSILON, cA0: CA0 };
-    tasks[label] = () => { sink += fitVolumes(data, options).k; };
-    tasks[`plain after ${label}`] = () => { sink += sumOf(data.V); };
+    tasks[at(label, points)] = () => { sink += fitVolumes(data, options).k; };
+    tasks[at(`plain after ${label}`, points)] = () => { sink += sumOf(data.V); };
   }
-  tasks.check = () => { sink += checkTrace({ model, conditions: { T: 523.15, P: 2e5, V0, yA0: 0.7 }, trace: first }).kObserved; };
-  tasks["plain after check"] = () => { sink += sumOf(first.V); };
-  const times = interleavedMedians(tasks);
+  tasks[at("check", points)] = () => { sink += checkTrace({ model, conditions: { T: 523.15, P: 2e5, V0, yA0: 0.7 }, trace: first }).kObserved; };
+  tasks[at("plain after check", points)] = () => { sink += sumOf(first.V); };
+}
+const times = interleavedMedians(tasks);
+
+for (const points of SIZES) {
+  const first = traceSets.get(points)!.get(1)!;
   const fits: Record<string, number> = {};
   const plains: Record<string, number> = {};
   for (const [label] of FIT_ORDERS) {
-    fits[label] = times[label];
-    plains[label] = times[`plain after ${label}`];
+    fits[label] = times[at(label, points)];
+    plains[label] = times[at(`plain after ${label}`, points)];
   }
   const ourFit = fitVolumes(first, { order: 1, V0, epsilonA: EPSILON, initialK: 0.7 * K_TRUE });
-  const row: Row = { plain: plains["n=1"], plains, fits, check: times.check, checkPlain: times["plain after check"], ourErr: Math.abs(ourFit.k / K_TRUE - 1) };
+  const row: Row = { plain: plains["n=1"], plains, fits, check: times[at("check", points)], checkPlain: times[at("plain after check", points)], ourErr: Math.abs(ourFit.k / K_TRUE - 1) };
   if (points <= ML_LIMIT) {
     const data = { x: first.t, y: first.V };
     let mlK = Number.NaN;
@@ -135,8 +145,8 @@ for (const points of SIZES) {
     row.mlVsOurs = Math.abs(mlK / ourFit.k - 1);
   }
   rows.set(points, row);
-  if (sink === 42) console.log("");
 }
+if (sink === 42) console.log("");
 
 const verdict = (ok: boolean) => (ok ? "PASS" : "MISS");
 
