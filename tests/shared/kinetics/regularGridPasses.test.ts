@@ -73,6 +73,33 @@ describe("passes on a regular time grid", () => {
     expect(Math.abs(checkedJtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
   });
 
+  it.each([-0.5, 0.3, 2])("order 0, εA = %f, past full conversion part way: residuals and sums equal the general pass's", (epsilonA) => {
+    // Reduced time up to 2.2, beyond ln(1 + εA)/εA for each εA here: the last blocks are flat.
+    const k = 1.2e-3 * CA0;
+    const t = evenTimes(POINTS, 1800);
+    const V = noisyVolumes(0, epsilonA, k, t, 1e-3);
+    const setup = setupFor(0, t, V, epsilonA, k);
+    const grid = likelyGrid(t, setup.scale)!;
+    const gridSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    const plainSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
+    expect(gridPass(setup, grid, null, gridSums, OPEN_GUARD)).toBe("complete");
+    const checkedSsr = gridSums.ssr;
+    const checkedJtj = gridSums.jtj;
+    const onGrid = new Float64Array(POINTS);
+    const general = new Float64Array(POINTS);
+    gridPass(setup, grid, onGrid, gridSums, OPEN_GUARD);
+    closedFormPass(setup, general, plainSums);
+    let largest = 0;
+    for (let i = 0; i < POINTS; i++) largest = Math.max(largest, Math.abs(onGrid[i] - general[i]));
+    // Common practice: the same model by two evaluations differs only by rounding.
+    expect(largest).toBeLessThan(1e-13);
+    // The flat part is there: the model stands at V0(1 + εA) at the end.
+    expect(Math.abs(V[POINTS - 1] - onGrid[POINTS - 1] - V0 * (1 + epsilonA))).toBeLessThan(1e-12);
+    const relative = (a: number, b: number) => Math.abs(a / b - 1);
+    for (const ssr of [gridSums.ssr, checkedSsr]) expect(relative(ssr, plainSums.ssr)).toBeLessThan(1e-10);
+    for (const jtj of [gridSums.jtj, checkedJtj]) expect(relative(jtj, plainSums.jtj)).toBeLessThan(1e-10);
+  });
+
   it.each([0, 1, 2] as const)("order %i: the checked pass stops at a point off the grid or outside the guard, and says which", (order) => {
     const k = 6e-4 / Math.pow(CA0, order - 1);
     const t = evenTimes(POINTS, 3600);
