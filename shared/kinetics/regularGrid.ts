@@ -1,3 +1,5 @@
+import { LARGEST } from "./passBasics.js";
+
 /**
  * Times on a regular grid t_i = t0 + i·h, as a logger writes them: on such a grid an exponential
  * in time is carried from point to point by one constant factor.
@@ -14,6 +16,26 @@ export interface RegularGrid {
  * then off by at most this much, about the rounding the factor carries over an anchor's span.
  */
 export const GRID_TAU_TOLERANCE = 1e-14;
+
+/** How a checked pass on the grid ended. */
+export type GridPassOutcome = "complete" | "outside guard" | "off grid";
+
+/**
+ * What a checked grid pass must establish before its loop, or undefined when it may start. A
+ * time within the tolerance of its grid time is finite; with t[0] ≥ 0, t0 ≥ 0 and steps wider
+ * than twice the tolerance, none is negative: so only the volumes need the guard at each point.
+ */
+export function gridStartRefusal(t: Float64Array, grid: RegularGrid, tolerance: number): GridPassOutcome | undefined {
+  if (!(grid.t0 >= 0 && grid.t0 <= LARGEST && (t.length === 0 || t[0] >= 0))) return "outside guard";
+  if (!(grid.h > 2 * tolerance)) return "off grid";
+  return undefined;
+}
+
+/** True when `time` is further than the tolerance from its grid time (or NaN). */
+export function offGrid(time: number, gridTime: number, tolerance: number): boolean {
+  const off = time - gridTime;
+  return !(off <= tolerance && off >= -tolerance);
+}
 
 /**
  * The grid the times seem to lie on, judged from the first, last and every stride-th point at

@@ -1,6 +1,6 @@
 import { ANCHOR_EVERY, ExponentialVolume } from "./exponentialVolumes.js";
-import { finishSums, keep, LARGEST, LoopSums, unboxed, type PassSetup, type PassSums, type PointGuard } from "./passBasics.js";
-import { GRID_TAU_TOLERANCE, type RegularGrid } from "./regularGrid.js";
+import { finishSums, keep, LoopSums, unboxed, type PassSetup, type PassSums, type PointGuard } from "./passBasics.js";
+import { GRID_TAU_TOLERANCE, gridStartRefusal, offGrid, type GridPassOutcome, type RegularGrid } from "./regularGrid.js";
 import { secondOrderGridResiduals, secondOrderGridSums } from "./secondOrderGridPasses.js";
 
 /**
@@ -11,7 +11,7 @@ import { secondOrderGridResiduals, secondOrderGridSums } from "./secondOrderGrid
  * rely on that proof.
  */
 
-export type GridPassOutcome = "complete" | "outside guard" | "off grid";
+export type { GridPassOutcome } from "./regularGrid.js";
 
 /**
  * One pass at setup.scale on the grid. Without `residuals` it is the checked pass: it stops at
@@ -70,10 +70,8 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
   const n = t.length;
   const t0 = unboxed(grid.t0), h = unboxed(grid.h);
   const tolerance = GRID_TAU_TOLERANCE / s.scale;
-  // A time within the tolerance of its grid time is finite; with t[0] ≥ 0, t0 ≥ 0 and steps wider
-  // than twice the tolerance, none is negative: so only the volumes need the guard at each point.
-  if (!(t0 >= 0 && t0 <= LARGEST && (n === 0 || t[0] >= 0))) return "outside guard";
-  if (!(h > 2 * tolerance)) return "off grid";
+  const refusal = gridStartRefusal(t, grid, tolerance);
+  if (refusal !== undefined) return refusal;
   const blocks = new GridBlocks(model, grid);
   const offset = unboxed(model.offset), factor = unboxed(blocks.factor);
   const lowV = unboxed(guard.lowV), highV = unboxed(guard.highV);
@@ -107,11 +105,6 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
   const sums = blocks.sums;
   keep(out, ssr + sums.ssr, slope * slope * (gg + sums.gg), slope * (gr + sums.gr), 0, 0);
   return "complete";
-}
-
-function offGrid(time: number, gridTime: number, tolerance: number): boolean {
-  const off = time - gridTime;
-  return !(off <= tolerance && off >= -tolerance);
 }
 
 /*

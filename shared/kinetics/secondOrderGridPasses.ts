@@ -1,6 +1,5 @@
-import { keep, LARGEST, unboxed, type LoopSums, type PassSetup, type PointGuard } from "./passBasics.js";
-import { GRID_TAU_TOLERANCE, type RegularGrid } from "./regularGrid.js";
-import type { GridPassOutcome } from "./regularGridPasses.js";
+import { keep, unboxed, type LoopSums, type PassSetup, type PointGuard } from "./passBasics.js";
+import { GRID_TAU_TOLERANCE, gridStartRefusal, offGrid, type GridPassOutcome, type RegularGrid } from "./regularGrid.js";
 import { SecondOrderAnchor } from "./secondOrderPasses.js";
 
 /*
@@ -29,9 +28,8 @@ export function secondOrderGridSums(s: PassSetup, grid: RegularGrid, guard: Poin
   const tolerance = GRID_TAU_TOLERANCE / scale;
   const tolerance2 = tolerance * tolerance;
   const lowV = unboxed(guard.lowV), highV = unboxed(guard.highV);
-  // As in the grid passes of orders 0 and 1: on the grid from t0 ≥ 0, no time is negative or infinite.
-  if (!(t0 >= 0 && t0 <= LARGEST && (n === 0 || t[0] >= 0))) return "outside guard";
-  if (!(h > 2 * tolerance)) return "off grid";
+  const refusal = gridStartRefusal(t, grid, tolerance);
+  if (refusal !== undefined) return refusal;
   const anchor = new SecondOrderAnchor(V0, eps);
   const c = anchor.volume;
   let ssr = 0, gg = 0, gr = 0;
@@ -45,10 +43,7 @@ export function secondOrderGridSums(s: PassSetup, grid: RegularGrid, guard: Poin
       const steps = i - from;
       const off = ti - (anchorTime + steps * h);
       // One test per point, as explained in regularGridPasses.ts.
-      if (!(off * off <= tolerance2 && (v - lowV) * (highV - v) > 0)) {
-        const onGrid = off <= tolerance && off >= -tolerance;
-        return onGrid ? "outside guard" : "off grid";
-      }
+      if (!(off * off <= tolerance2 && (v - lowV) * (highV - v) > 0)) return offGrid(ti, anchorTime + steps * h, tolerance) ? "off grid" : "outside guard";
       const d = steps * tauStep;
       const d2 = d * d;
       const m = c0 + d * c1 + d2 * (c2 + d * c3 + d2 * (c4 + d * c5 + d2 * c6));
