@@ -41,6 +41,15 @@ export class LoopSums {
   /** Σ(V − V[0]) and Σ(V − V[0])², kept only when residuals are written. */
   sum = 0;
   squares = 0;
+
+  /** Adds one span's or block's sums (kept in the loop's locals while it ran). */
+  add(ssr: number, gg: number, gr: number, sum = 0, squares = 0): void {
+    this.ssr += ssr;
+    this.gg += gg;
+    this.gr += gr;
+    this.sum += sum;
+    this.squares += squares;
+  }
 }
 
 /** Fills `sums` from a loop's sums: applies the factors of k, and gives sst when residuals were written. */

@@ -140,10 +140,7 @@ function checkedBlock(t: Float64Array, V: Float64Array, from: number, to: number
     }
     qi *= factor;
   }
-  const sums = blocks.sums;
-  sums.ssr += ssr;
-  sums.gg += gg;
-  sums.gr += gr;
+  blocks.sums.add(ssr, gg, gr);
   return to;
 }
 
@@ -215,10 +212,5 @@ function blockResiduals(V: Float64Array, residuals: Float64Array, from: number, 
     qi *= factor;
     time += h;
   }
-  const sums = blocks.sums;
-  sums.ssr += ssr;
-  sums.gg += gg;
-  sums.gr += gr;
-  sums.sum += sum;
-  sums.squares += squares;
+  blocks.sums.add(ssr, gg, gr, sum, squares);
 }

@@ -89,9 +89,7 @@ function sumsWithinReach(t: Float64Array, V: Float64Array, from: number, scale: 
     gg += g * g;
     gr += g * r;
   }
-  sums.ssr += ssr;
-  sums.gg += gg;
-  sums.gr += gr;
+  sums.add(ssr, gg, gr);
   return i;
 }
 
@@ -140,11 +138,7 @@ function residualsWithinReach(t: Float64Array, V: Float64Array, residuals: Float
     sum += dv;
     squares += dv * dv;
   }
-  sums.ssr += ssr;
-  sums.gg += gg;
-  sums.gr += gr;
-  sums.sum += sum;
-  sums.squares += squares;
+  sums.add(ssr, gg, gr, sum, squares);
   return i;
 }
 
