@@ -2,7 +2,7 @@ import { rateConstantUnit, type FitResult } from "./fitResult.js";
 import { assertFittable, type ChargeSetup } from "./fitSetup.js";
 import { fitLineThroughOrigin } from "./lineFit.js";
 import { predictVolume } from "./prediction.js";
-import { reducedTimeAtConversion } from "./reducedTime.js";
+import { closedFormReducedTime, reducedTimeAtConversion } from "./reducedTime.js";
 import type { Trace } from "./trace.js";
 import { selectFitPoints } from "./traceSelection.js";
 
@@ -67,21 +67,21 @@ function finiteCount(values: Float64Array): number {
   return count;
 }
 
-/** The linearised quantity of each volume into y, one loop per order. */
+/**
+ * The linearised quantity of each volume into y: τ(XA) in closed form at orders 0, 1 and 2
+ * (times cA0 at order 0; order 2 keeps τ, its slope being k·cA0), τ(XA)·cA0^(1−n) otherwise.
+ */
 function linearise(volumes: Float64Array, model: { V0: number; epsilonA: number; order: number; cA0: number }, y: Float64Array): void {
   const { V0, epsilonA, order, cA0 } = model;
   const n = volumes.length;
   const perVolume = 1 / (epsilonA * V0);
+  // One loop per closed form, each calling it with a constant order (one loop for all ran slower).
   if (order === 0) {
-    const factor = cA0 / epsilonA;
-    for (let i = 0; i < n; i++) y[i] = factor * Math.log1p(epsilonA * ((volumes[i] - V0) * perVolume));
+    for (let i = 0; i < n; i++) y[i] = cA0 * closedFormReducedTime((volumes[i] - V0) * perVolume, 0, epsilonA);
   } else if (order === 1) {
-    for (let i = 0; i < n; i++) y[i] = -Math.log1p(-((volumes[i] - V0) * perVolume));
+    for (let i = 0; i < n; i++) y[i] = closedFormReducedTime((volumes[i] - V0) * perVolume, 1, epsilonA);
   } else if (order === 2) {
-    for (let i = 0; i < n; i++) {
-      const X = (volumes[i] - V0) * perVolume;
-      y[i] = ((1 + epsilonA) * X) / (1 - X) + epsilonA * Math.log1p(-X);
-    }
+    for (let i = 0; i < n; i++) y[i] = closedFormReducedTime((volumes[i] - V0) * perVolume, 2, epsilonA);
   } else {
     const factor = Math.pow(cA0, 1 - order);
     for (let i = 0; i < n; i++) y[i] = reducedTimeAtConversion((volumes[i] - V0) * perVolume, order, epsilonA) * factor;
