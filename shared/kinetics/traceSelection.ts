@@ -24,26 +24,27 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
   const { V0, epsilonA } = rules;
   const cap = rules.maxConversion;
   const n = Math.min(trace.t.length, trace.V.length);
-  const typed = trace.t instanceof Float64Array && trace.V instanceof Float64Array;
-  const clear = typed ? clearlyUsablePrefix(trace.t as Float64Array, trace.V as Float64Array, n, rules) : 0;
-  if (clear === n && typed) return { t: (trace.t as Float64Array).subarray(0, n), V: (trace.V as Float64Array).subarray(0, n), excluded: 0, warnings: [] };
+  const typed = trace.t instanceof Float64Array && trace.V instanceof Float64Array ? { t: trace.t, V: trace.V } : undefined;
+  // With every point kept, typed arrays serve as they are.
+  const whole = typed && ((warnings: string[]): SelectedPoints => ({ t: typed.t.subarray(0, n), V: typed.V.subarray(0, n), excluded: 0, warnings }));
+  const clear = typed ? clearlyUsablePrefix(typed.t, typed.V, n, rules) : 0;
+  if (whole && clear === n) return whole([]);
   // Into arrays sized for every point, the result viewing the part filled: the points before the
   // first that needs a closer look in one block copy, the rest one by one.
   const { t, V } = buffers?.take(n) ?? { t: new Float64Array(n), V: new Float64Array(n) };
   const counts = new SelectionCounts();
   if (typed) {
-    const tIn = trace.t as Float64Array, vIn = trace.V as Float64Array;
-    t.set(tIn.subarray(0, clear));
-    V.set(vIn.subarray(0, clear));
+    t.set(typed.t.subarray(0, clear));
+    V.set(typed.V.subarray(0, clear));
     counts.kept = clear;
-    sortTypedPoints(tIn, vIn, clear, n, rules, t, V, counts);
+    sortTypedPoints(typed.t, typed.V, clear, n, rules, t, V, counts);
   } else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
   const { kept, pastFull, pastCap, invalid } = counts;
   const warnings: string[] = [];
   if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
   if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
   if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
-  if (kept === n && typed) return { t: (trace.t as Float64Array).subarray(0, n), V: (trace.V as Float64Array).subarray(0, n), excluded: 0, warnings };
+  if (whole && kept === n) return whole(warnings);
   return { t: t.subarray(0, kept), V: V.subarray(0, kept), excluded: n - kept, warnings };
 }
 
