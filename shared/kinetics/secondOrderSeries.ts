@@ -6,7 +6,7 @@ import { solveSecondOrder } from "./closedFormSeries.js";
  * division, logarithm or Newton step.
  */
 
-/** Degree of the polynomial in d. */
+/** Degree of the polynomial in d; secondOrderCoefficients and the passes' loops are written out for it. */
 export const SECOND_ORDER_DEGREE = 6;
 
 /**

@@ -221,7 +221,7 @@ function estimateInitialK(t: Float64Array, V: Float64Array, setup: VolumeFitOpti
     }
   }
   const tEnd = t[t.length - 1];
-  // k·cA0^(n−1) at the line's order; from the first-order line when nothing usable was found.
+  // The line's slope is k·cA0^(n−1); with no usable point, a rate of one per trace length.
   let scale = sty / stt;
   if (!(scale > 0) || !Number.isFinite(scale)) scale = tEnd > 0 ? 1 / tEnd : 1;
   if (order === 1) return scale;
