@@ -46,58 +46,50 @@ describe("passes on a regular time grid", () => {
     }
   });
 
-  it.each(CASES)("order %i, εA = %f: residuals and sums equal the general pass's at the same k", (order, epsilonA) => {
-    const k = order === 0 ? 6e-4 * CA0 : 6e-4 / Math.pow(CA0, order - 1);
-    const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
+  /** The checked and residual grid passes and the general pass at one k, on a noisy trace. */
+  function gridAndGeneral(order: 0 | 1 | 2, epsilonA: number, k: number, duration: number) {
+    const t = evenTimes(POINTS, duration);
     const V = noisyVolumes(order, epsilonA, k, t, 1e-3);
     const setup = setupFor(order, t, V, epsilonA, k);
     const grid = likelyGrid(t, setup.scale)!;
+    const checked = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
     const gridSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
     const plainSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
-    expect(gridPass(setup, grid, null, gridSums, OPEN_GUARD)).toBe("complete");
-    const checkedJtr = gridSums.jtr;
+    const outcome = gridPass(setup, grid, null, checked, OPEN_GUARD);
     const onGrid = new Float64Array(POINTS);
     const general = new Float64Array(POINTS);
     gridPass(setup, grid, onGrid, gridSums, OPEN_GUARD);
     closedFormPass(setup, general, plainSums);
     let largest = 0;
     for (let i = 0; i < POINTS; i++) largest = Math.max(largest, Math.abs(onGrid[i] - general[i]));
+    return { V, outcome, checked, gridSums, plainSums, onGrid, largest };
+  }
+  const relative = (a: number, b: number) => Math.abs(a / b - 1);
+
+  it.each(CASES)("order %i, εA = %f: residuals and sums equal the general pass's at the same k", (order, epsilonA) => {
+    const k = order === 0 ? 6e-4 * CA0 : 6e-4 / Math.pow(CA0, order - 1);
+    const { outcome, checked, gridSums, plainSums, largest } = gridAndGeneral(order, epsilonA, k, order === 0 ? 900 : 3600);
+    expect(outcome).toBe("complete");
     // Common practice: both carry an exponential by products; they differ only by rounding.
     expect(largest).toBeLessThan(1e-13);
-    const relative = (a: number, b: number) => Math.abs(a / b - 1);
     expect(relative(gridSums.ssr, plainSums.ssr)).toBeLessThan(1e-10);
     expect(relative(gridSums.sst, plainSums.sst)).toBeLessThan(1e-12);
     expect(relative(gridSums.jtj, plainSums.jtj)).toBeLessThan(1e-10);
     const scaleOfJtr = 1e-9 * Math.sqrt(plainSums.jtj * plainSums.ssr);
     expect(Math.abs(gridSums.jtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
-    expect(Math.abs(checkedJtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
+    expect(Math.abs(checked.jtr - plainSums.jtr)).toBeLessThan(scaleOfJtr);
   });
 
   it.each([-0.5, 0.3, 2])("order 0, εA = %f, past full conversion part way: residuals and sums equal the general pass's", (epsilonA) => {
     // Reduced time up to 2.2, beyond ln(1 + εA)/εA for each εA here: the last blocks are flat.
-    const k = 1.2e-3 * CA0;
-    const t = evenTimes(POINTS, 1800);
-    const V = noisyVolumes(0, epsilonA, k, t, 1e-3);
-    const setup = setupFor(0, t, V, epsilonA, k);
-    const grid = likelyGrid(t, setup.scale)!;
-    const gridSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
-    const plainSums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
-    expect(gridPass(setup, grid, null, gridSums, OPEN_GUARD)).toBe("complete");
-    const checkedSsr = gridSums.ssr;
-    const checkedJtj = gridSums.jtj;
-    const onGrid = new Float64Array(POINTS);
-    const general = new Float64Array(POINTS);
-    gridPass(setup, grid, onGrid, gridSums, OPEN_GUARD);
-    closedFormPass(setup, general, plainSums);
-    let largest = 0;
-    for (let i = 0; i < POINTS; i++) largest = Math.max(largest, Math.abs(onGrid[i] - general[i]));
+    const { V, outcome, checked, gridSums, plainSums, onGrid, largest } = gridAndGeneral(0, epsilonA, 1.2e-3 * CA0, 1800);
+    expect(outcome).toBe("complete");
     // Common practice: the same model by two evaluations differs only by rounding.
     expect(largest).toBeLessThan(1e-13);
     // The flat part is there: the model stands at V0(1 + εA) at the end.
     expect(Math.abs(V[POINTS - 1] - onGrid[POINTS - 1] - V0 * (1 + epsilonA))).toBeLessThan(1e-12);
-    const relative = (a: number, b: number) => Math.abs(a / b - 1);
-    for (const ssr of [gridSums.ssr, checkedSsr]) expect(relative(ssr, plainSums.ssr)).toBeLessThan(1e-10);
-    for (const jtj of [gridSums.jtj, checkedJtj]) expect(relative(jtj, plainSums.jtj)).toBeLessThan(1e-10);
+    for (const ssr of [gridSums.ssr, checked.ssr]) expect(relative(ssr, plainSums.ssr)).toBeLessThan(1e-10);
+    for (const jtj of [gridSums.jtj, checked.jtj]) expect(relative(jtj, plainSums.jtj)).toBeLessThan(1e-10);
   });
 
   it.each([0, 1, 2] as const)("order %i: the checked pass stops at a point off the grid or outside the guard, and says which", (order) => {
