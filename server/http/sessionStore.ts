@@ -56,6 +56,15 @@ export function createSessionStore(pool: pg.Pool, cache: SessionCache, log: { wa
     sess[PERSON] = person;
     return sess;
   };
+  // A write's session is forgotten before it starts and again once it is done (the callback this
+  // returns), so no read made in between is kept.
+  const forgottenAround = (sid: string, fn?: (err?: unknown) => void) => {
+    cache.forgetSession(sid);
+    return (err?: unknown) => {
+      cache.forgetSession(sid);
+      fn?.(err);
+    };
+  };
   class SessionStore extends PgStore {
     override get(sid: string, fn: (err: unknown, sess?: session.SessionData | null) => void) {
       const copy = cache.get(sid, Date.now());
@@ -72,20 +81,11 @@ export function createSessionStore(pool: pg.Pool, cache: SessionCache, log: { wa
         (err) => fn(err),
       );
     }
-    // Forgotten before the write and again once it is done, so no read in between is kept.
     override set(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void) {
-      cache.forgetSession(sid);
-      super.set(sid, sess, (err?: unknown) => {
-        cache.forgetSession(sid);
-        fn?.(err);
-      });
+      super.set(sid, sess, forgottenAround(sid, fn));
     }
     override destroy(sid: string, fn?: (err?: unknown) => void) {
-      cache.forgetSession(sid);
-      super.destroy(sid, (err?: unknown) => {
-        cache.forgetSession(sid);
-        fn?.(err);
-      });
+      super.destroy(sid, forgottenAround(sid, fn));
     }
     // express-session builds the request's session from what get() returned, here.
     override createSession(req: Express.Request, sess: session.SessionData & WithPerson) {
