@@ -12,7 +12,7 @@ import { announce } from "../services/live.js";
 import { writeSample } from "./sampleWriter.js";
 import { conflict, HttpError } from "../http/errors.js";
 import { createTraceCsvParser, type ParsedTrace } from "../../shared/kinetics/traceCsvParser.js";
-import { checkTrace } from "../../shared/kinetics/checkTrace.js";
+import { checkVerdict } from "../../shared/kinetics/checkTrace.js";
 import { checkConditionsFor, checkModelFor } from "../../shared/execution/modelAtBatch.js";
 import { toSI, fromSI } from "../../shared/units/index.js";
 import type { SignedInPerson } from "../policies/access.js";
@@ -118,7 +118,7 @@ export function createBatchFiles(deps: { db: Db; storage: StorageService; notify
 const EARLY = new Set(["too-few-points", "conversion-too-low", "fit-failed"]);
 async function bandCheck(tx: Tx, record: BatchRecord) {
   const trace = await combinedTrace(tx, record.batch.id);
-  const result = checkTrace({ model: checkModelFor(record.model.content, record.model.epsilonA, record.batch.v0L), conditions: checkConditionsFor(record.batch, record.model.yA0), trace });
+  const result = checkVerdict({ model: checkModelFor(record.model.content, record.model.epsilonA, record.batch.v0L), conditions: checkConditionsFor(record.batch, record.model.yA0), trace });
   const reasons = result.reasons.filter((r) => !EARLY.has(r.code)).map((r) => r.message);
   return { outside: reasons.length > 0, reasons };
 }

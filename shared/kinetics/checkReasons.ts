@@ -75,16 +75,39 @@ export interface VolumeFaults {
   againstV: number;
 }
 
-/** Counts points moving the wrong way or beyond full conversion, allowing `allowance` L of noise. */
-export function volumeDirectionFaults(V: ArrayLike<number>, V0: number, epsilonA: number, allowance: number): VolumeFaults {
+/** The largest and smallest volume, ignoring NaN (−∞ and +∞ when there is none). */
+export interface VolumeRange {
+  largest: number;
+  smallest: number;
+}
+
+/** One read of the volumes for their range, which both volume rules below start from. */
+export function volumeRange(V: ArrayLike<number>): VolumeRange {
+  const n = V.length;
+  let largest = Number.NEGATIVE_INFINITY;
+  let smallest = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < n; i++) {
+    const v = V[i];
+    if (v > largest) largest = v;
+    if (v < smallest) smallest = v;
+  }
+  return { largest, smallest };
+}
+
+/**
+ * Counts points moving the wrong way or beyond full conversion, allowing `allowance` L of noise.
+ * Both rules are monotonic in V, so the range shows whether any point breaks them; only then are
+ * the volumes read again to count and place the faults.
+ */
+export function volumeDirectionFaults(V: ArrayLike<number>, V0: number, epsilonA: number, allowance: number, range = volumeRange(V)): VolumeFaults {
   const sign = Math.sign(epsilonA);
   const full = V0 * (1 + epsilonA);
   const faults: VolumeFaults = { pastFull: 0, against: 0, extremeV: Number.NaN, againstV: Number.NaN };
-  // As with the bands: a quick read finds the first fault, if any, and the count starts there.
+  const furthest = sign > 0 ? range.largest : range.smallest;
+  const backmost = sign > 0 ? range.smallest : range.largest;
+  if (!(sign * (furthest - full) > allowance || sign * (backmost - V0) < -allowance)) return faults;
   const n = V.length;
-  let first = 0;
-  while (first < n && !(sign * (V[first] - full) > allowance || sign * (V[first] - V0) < -allowance)) first++;
-  for (let i = first; i < n; i++) {
+  for (let i = 0; i < n; i++) {
     const v = V[i];
     if (sign * (v - full) > allowance) {
       faults.pastFull++;
@@ -103,14 +126,6 @@ export function volumeDirectionFaults(V: ArrayLike<number>, V0: number, epsilonA
  * The conversion rises with V for εA > 0 and falls for εA < 0, so it is that of the largest or
  * the smallest volume, converted once.
  */
-export function highestConversion(V: ArrayLike<number>, V0: number, epsilonA: number): number {
-  const n = V.length;
-  let largest = Number.NEGATIVE_INFINITY;
-  let smallest = Number.POSITIVE_INFINITY;
-  for (let i = 0; i < n; i++) {
-    const v = V[i];
-    if (v > largest) largest = v;
-    if (v < smallest) smallest = v;
-  }
-  return (epsilonA > 0 ? largest - V0 : smallest - V0) / (epsilonA * V0);
+export function highestConversion(V: ArrayLike<number>, V0: number, epsilonA: number, range = volumeRange(V)): number {
+  return (epsilonA > 0 ? range.largest - V0 : range.smallest - V0) / (epsilonA * V0);
 }

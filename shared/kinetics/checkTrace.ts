@@ -1,6 +1,6 @@
 import { fromSI } from "../units/index.js";
 import { arrheniusRateConstant } from "./arrhenius.js";
-import { findExcursions, highestConversion, show, volumeDirectionFaults, type CheckReason } from "./checkReasons.js";
+import { findExcursions, highestConversion, show, volumeDirectionFaults, volumeRange, type CheckReason } from "./checkReasons.js";
 import { initialConcentrationGas } from "./conversion.js";
 import type { FitResult } from "./fitResult.js";
 import { KineticsInputError } from "./kineticsInputError.js";
@@ -45,7 +45,8 @@ export interface BatchConditions {
   yA0?: number;
 }
 
-export interface KineticsCheckResult {
+/** The check's verdict with its reasons and the fit behind them. */
+export interface KineticsVerdict {
   verdict: "within" | "outside";
   reasons: CheckReason[];
   kObserved: number;
@@ -58,12 +59,23 @@ export interface KineticsCheckResult {
   maxConversion: number;
   cA0: number | undefined;
   fit: FitResult | null;
-  /** Model volume at every trace time at kModel, L. */
-  predicted: Float64Array;
-  linearised: { x: Float64Array; y: Float64Array; slope: number; modelSlope: number } | null;
   /** Facts worth showing that are not reasons, e.g. a band that could not be checked. */
   notes: string[];
   notice: string;
+}
+
+/** The verdict with the series its charts draw. */
+export interface KineticsCheckResult extends KineticsVerdict {
+  /** Model volume at every trace time at kModel, L. */
+  predicted: Float64Array;
+  linearised: { x: Float64Array; y: Float64Array; slope: number; modelSlope: number } | null;
+}
+
+/** What the check compares. */
+export interface KineticsCheckInput {
+  model: ApprovedRateModel;
+  conditions: BatchConditions;
+  trace: Trace;
 }
 
 /** Shown with every check result. */
@@ -72,8 +84,17 @@ export const KINETICS_CHECK_NOTICE =
   "review, the vessel's pressure and temperature limits or release by the responsible person under your " +
   "site's procedures and local codes.";
 
-/** Compares an observed volume trace with the approved rate model at the batch conditions. */
-export function checkTrace(input: { model: ApprovedRateModel; conditions: BatchConditions; trace: Trace }): KineticsCheckResult {
+/** Compares an observed volume trace with the approved rate model at the batch conditions, with the series for its charts. */
+export function checkTrace(input: KineticsCheckInput): KineticsCheckResult {
+  const verdict = checkVerdict(input);
+  return { ...verdict, ...chartSeries(input, verdict) };
+}
+
+/**
+ * The verdict alone, for callers that draw nothing: the chart series (the prediction at every
+ * time and the linearised plot, a logarithm per point) cost more than the fit behind the verdict.
+ */
+export function checkVerdict(input: KineticsCheckInput): KineticsVerdict {
   const { model, conditions, trace } = input;
   validate(model, conditions, trace);
   const reasons: CheckReason[] = [];
@@ -95,11 +116,11 @@ export function checkTrace(input: { model: ApprovedRateModel; conditions: BatchC
     return {
       ...base, verdict: "outside", reasons, kObserved: Number.NaN, kObservedCI95: [Number.NaN, Number.NaN],
       deviationPct: Number.NaN, residualRms: Number.NaN, points: trace.t.length, maxConversion: Number.NaN, fit: null,
-      predicted: new Float64Array(trace.t.length).fill(V0), linearised: null,
     };
   }
   const allowance = model.residualRmsMax;
-  const faults = volumeDirectionFaults(trace.V, V0, eps, allowance);
+  const range = volumeRange(trace.V);
+  const faults = volumeDirectionFaults(trace.V, V0, eps, allowance, range);
   const full = V0 * (1 + eps);
   if (faults.pastFull > 0) {
     reasons.push({
@@ -113,7 +134,7 @@ export function checkTrace(input: { model: ApprovedRateModel; conditions: BatchC
       message: `${faults.against} point(s) move the volume ${eps > 0 ? "below" : "above"} V0 = ${show(V0)} L by more than ${show(allowance)} L (furthest ${show(faults.againstV)} L), against the sign of εA = ${show(eps)}.`,
     });
   }
-  const maxConversion = highestConversion(trace.V, V0, eps);
+  const maxConversion = highestConversion(trace.V, V0, eps, range);
   const minConversion = model.minConversion ?? 0.1;
   if (!(maxConversion >= minConversion)) {
     reasons.push({
@@ -141,17 +162,23 @@ export function checkTrace(input: { model: ApprovedRateModel; conditions: BatchC
       message: `Residual RMS of the fit is ${show(fit.residualRms)} L (${show(fit.residualRms * 1000)} mL), above the ${show(model.residualRmsMax)} L allowed: the trace does not follow an order-${show(model.order)} rise.`,
     });
   }
-  const linearised = buildLinearised(trace, model, V0, cA0, fit.k, kModel);
   return {
     ...base, kUnit: fit.kUnit, verdict: reasons.length === 0 ? "within" : "outside", reasons, kObserved: fit.k,
     kObservedCI95: fit.kCI95, deviationPct, residualRms: fit.residualRms, points: fit.points, maxConversion, fit,
-    predicted: predictVolume({ order: model.order, k: kModel, epsilonA: eps, V0, cA0 }, trace.t), linearised,
   };
 }
 
-function buildLinearised(trace: Trace, model: ApprovedRateModel, V0: number, cA0: number | undefined, kObserved: number, kModel: number) {
-  const points = linearisedIntegral(trace, { order: model.order, V0, epsilonA: model.epsilonA, cA0 });
-  return { x: points.x, y: points.y, slope: kObserved * points.slopePerK, modelSlope: kModel * points.slopePerK };
+/** The model's volume at every trace time and, where εA ≠ 0, the linearised plot with both slopes. */
+function chartSeries({ model, conditions, trace }: KineticsCheckInput, verdict: KineticsVerdict): Pick<KineticsCheckResult, "predicted" | "linearised"> {
+  const { V0 } = conditions;
+  const { kModel, cA0 } = verdict;
+  const eps = model.epsilonA;
+  if (eps === 0) return { predicted: new Float64Array(trace.t.length).fill(V0), linearised: null };
+  const points = linearisedIntegral(trace, { order: model.order, V0, epsilonA: eps, cA0 });
+  return {
+    predicted: predictVolume({ order: model.order, k: kModel, epsilonA: eps, V0, cA0 }, trace.t),
+    linearised: { x: points.x, y: points.y, slope: verdict.kObserved * points.slopePerK, modelSlope: kModel * points.slopePerK },
+  };
 }
 
 function checkBands(model: ApprovedRateModel, conditions: BatchConditions, trace: Trace, reasons: CheckReason[], notes: string[]): void {

@@ -1,12 +1,13 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { findExcursions, highestConversion, volumeDirectionFaults } from "../../../shared/kinetics/checkReasons";
+import { findExcursions, highestConversion, volumeDirectionFaults, volumeRange } from "../../../shared/kinetics/checkReasons";
 
-// The scans read a series quickly first and count only when something is off; these properties
-// compare them with the rules applied point by point, NaN and infinities included.
+// The scans read a series quickly first (the volume rules only its range) and count only when
+// something is off; these properties compare them with the rules applied point by point, NaN and
+// infinities included.
 const reading = fc.oneof(
   { weight: 10, arbitrary: fc.double({ min: 1.5, max: 4, noNaN: true }) },
-  { weight: 1, arbitrary: fc.constantFrom(Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0, 10) },
+  { weight: 2, arbitrary: fc.constantFrom(Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, 0, 4.3, 5, 8, 10) },
 );
 const series = fc.array(reading, { maxLength: 60 });
 
@@ -33,8 +34,8 @@ describe("check reasons read from the series", () => {
 
   it("volumeDirectionFaults and highestConversion agree with the rules point by point, for either sign of εA", () => {
     fc.assert(
-      fc.property(series, fc.constantFrom(0.7, -0.4), (values, epsilonA) => {
-        const V0 = 2.5, allowance = 0.01, sign = Math.sign(epsilonA), full = V0 * (1 + epsilonA);
+      fc.property(series, fc.constantFrom(0.7, -0.4, 2), fc.constantFrom(0, 0.01, 0.5), (values, epsilonA, allowance) => {
+        const V0 = 2.5, sign = Math.sign(epsilonA), full = V0 * (1 + epsilonA);
         const expected = { pastFull: 0, against: 0, extremeV: Number.NaN, againstV: Number.NaN };
         let highest = Number.NEGATIVE_INFINITY;
         for (const v of values) {
@@ -52,7 +53,11 @@ describe("check reasons read from the series", () => {
         const V = Float64Array.from(values);
         expect(volumeDirectionFaults(V, V0, epsilonA, allowance)).toEqual(expected);
         expect(highestConversion(V, V0, epsilonA)).toBe(highest);
+        const range = volumeRange(V);
+        expect(volumeDirectionFaults(V, V0, epsilonA, allowance, range)).toEqual(expected);
+        expect(highestConversion(V, V0, epsilonA, range)).toBe(highest);
       }),
+      { numRuns: 1000 },
     );
   });
 });

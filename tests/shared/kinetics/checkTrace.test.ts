@@ -3,6 +3,7 @@ import {
   KINETICS_CHECK_NOTICE,
   KineticsInputError,
   checkTrace,
+  checkVerdict,
   predictVolume,
   type ApprovedRateModel,
   type BatchConditions,
@@ -147,5 +148,23 @@ describe("checkTrace", () => {
     const result = checkTrace({ model, conditions, trace: { t, V } });
     expect(result.verdict).toBe("within");
     expect(result.notes).toHaveLength(2);
+  });
+
+  it("gives the same verdict without the chart series through checkVerdict", () => {
+    const cases = [
+      { model, conditions, trace: trace(8e-4) },
+      { model, conditions, trace: trace(1.3 * 8e-4) },
+      { model: { ...model, order: 2 }, conditions, trace: trace(8e-4 / 0.0322, { order: 2, cA0: 0.0322 }) },
+      { model: { ...model, epsilonA: 0 }, conditions, trace: trace(8e-4) },
+    ];
+    for (const input of cases) {
+      const { predicted, linearised, ...withoutSeries } = checkTrace(input);
+      const verdict = checkVerdict(input);
+      expect(verdict).toEqual(withoutSeries);
+      expect(verdict).not.toHaveProperty("predicted");
+      expect(verdict).not.toHaveProperty("linearised");
+      expect(predicted).toHaveLength(input.trace.t.length);
+      expect(linearised === null).toBe(input.model.epsilonA === 0);
+    }
   });
 });
