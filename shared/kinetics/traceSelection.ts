@@ -173,7 +173,7 @@ function prefixWithin(t: Float64Array, V: Float64Array, n: number, lowV: number,
   return n;
 }
 
-/** Every `stride`-th point plus the last: a coarse copy for a quick first fit. */
+/** Every `stride`-th point from the first (about `target` of them): a coarse copy for a quick first fit. */
 export function thinPoints(t: Float64Array, V: Float64Array, target: number): { t: Float64Array; V: Float64Array } {
   const stride = Math.max(1, Math.floor(t.length / target));
   const count = Math.ceil(t.length / stride);

@@ -1,12 +1,19 @@
 import { parentPort, workerData } from "node:worker_threads";
 import autocannon from "autocannon";
-import type { LoadRun, LoadOutcome } from "./loadDriver.js";
+import { nearestRank, type LoadRun, type LoadOutcome } from "./loadDriver.js";
 
 // Runs in its own thread so the load generator does not share the server's event loop.
 const run = workerData as LoadRun;
+const leadInMs = (run.leadInS ?? 0) * 1000;
 const acknowledged: string[] = [];
+const leadInAcknowledged: string[] = [];
 const latenciesMs: number[] = [];
+const statusCodes: Record<string, number> = {};
+let ok2xx = 0;
+let non2xx = 0;
 let next = 0;
+let measuring = leadInMs === 0;
+let measuredFrom = 0;
 
 function idAt(body: string, path: string[]): string | undefined {
   try {
@@ -19,11 +26,18 @@ function idAt(body: string, path: string[]): string | undefined {
 }
 
 parentPort!.postMessage({ started: true });
+const startMeasuring = () => {
+  measuring = true;
+  measuredFrom = performance.now();
+  parentPort!.postMessage({ measuring: true });
+};
+if (measuring) startMeasuring();
+else setTimeout(startMeasuring, leadInMs);
 const instance = autocannon(
   {
     url: run.url,
     connections: run.targets.length,
-    duration: run.durationS,
+    duration: (leadInMs / 1000) + run.durationS,
     timeout: run.timeoutS ?? 10,
     method: "POST",
     // Each connection is one client: its own path, cookie and token, kept for the whole run.
@@ -38,7 +52,7 @@ const instance = autocannon(
           onResponse: (status, body) => {
             if (status < 200 || status >= 300) return;
             const id = idAt(body, run.idPath);
-            if (id) acknowledged.push(id);
+            if (id) (measuring ? acknowledged : leadInAcknowledged).push(id);
           },
         },
       ]);
@@ -49,27 +63,35 @@ const instance = autocannon(
       parentPort!.postMessage({ error: String(err) });
       return;
     }
-    // Off the main thread autocannon hands back raw counters; its own aggregation gives the percentiles.
-    const raw = result as unknown as { totalCompletedRequests: number };
-    const aggregate = (autocannon as unknown as { aggregateResult(r: unknown, o: object): autocannon.Result }).aggregateResult([result], { url: run.url, connections: run.targets.length });
-    const statusCodes = Object.fromEntries(Object.entries(result.statusCodeStats ?? {}).map(([code, v]) => [code, v.count ?? 0]));
+    // Counted here rather than by autocannon, so the lead-in is left out; failures (non-2xx,
+    // errors and timeouts, the last two autocannon's own) count over the whole run.
+    const durationS = (performance.now() - measuredFrom) / 1000;
+    const sorted = Float64Array.from(latenciesMs).sort();
     const outcome: LoadOutcome = {
-      durationS: result.duration,
-      requestsPerSecond: raw.totalCompletedRequests / result.duration,
-      ok2xx: result["2xx"],
-      non2xx: result.non2xx,
+      durationS,
+      requestsPerSecond: latenciesMs.length / durationS,
+      ok2xx,
+      non2xx,
       errors: result.errors,
       timeouts: result.timeouts,
-      p50Ms: aggregate.latency.p50,
-      p99Ms: aggregate.latency.p99,
-      maxMs: aggregate.latency.max,
+      p50Ms: nearestRank(sorted, 0.5),
+      p99Ms: nearestRank(sorted, 0.99),
+      maxMs: sorted.length === 0 ? Number.NaN : sorted[sorted.length - 1],
       statusCodes,
       acknowledged,
+      leadInAcknowledged,
       latenciesMs,
     };
     parentPort!.postMessage({ outcome });
   },
 );
-// Every completed request's time, so runs split into slices can be pooled exactly.
-instance.on("response", (_client: unknown, _status: number, _bytes: number, responseTimeMs: number) => latenciesMs.push(responseTimeMs));
+// Every completed request's time after the lead-in, so runs split into slices can be pooled exactly.
+instance.on("response", (_client: unknown, status: number, _bytes: number, responseTimeMs: number) => {
+  const ok = status >= 200 && status < 300;
+  if (!ok) non2xx++;
+  if (!measuring) return;
+  latenciesMs.push(responseTimeMs);
+  statusCodes[status] = (statusCodes[status] ?? 0) + 1;
+  if (ok) ok2xx++;
+});
 instance.on("error", (err) => parentPort!.postMessage({ error: String(err) }));
