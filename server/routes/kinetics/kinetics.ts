@@ -7,6 +7,7 @@ import { validate } from "../../http/validate.js";
 import { HttpError, fromZod } from "../../http/errors.js";
 import {
   checkTrace,
+  checkVerdict,
   computeEpsilonA,
   fitAutoOrder,
   fitIntegral,
@@ -98,8 +99,9 @@ function runFit(trace: Trace, params: Omit<FitParams, "csv">) {
 }
 
 function runCheck(trace: Trace, params: Omit<CheckParams, "csv">) {
-  const result = compute(() => checkTrace({ model: params.model, conditions: params.conditions, trace }));
-  return presentCheck(result, params.includeSeries ?? true);
+  const input = { model: params.model, conditions: params.conditions, trace };
+  // Without the series there is nothing to draw, so the chart series are not built either.
+  return presentCheck(compute(() => ((params.includeSeries ?? true) ? checkTrace(input) : checkVerdict(input))));
 }
 
 /** /api/kinetics: pure computation over the kinetics library; nothing stored. */

@@ -1,4 +1,4 @@
-import { KINETICS_LIBRARY_VERSION, type IntegralFitResult, type KineticsCheckResult, type OrderTrial } from "../../../shared/kinetics/index.js";
+import { KINETICS_LIBRARY_VERSION, type IntegralFitResult, type KineticsCheckResult, type KineticsVerdict, type OrderTrial } from "../../../shared/kinetics/index.js";
 import type { CheckResponse, FitResponse, OrderTrialView } from "../../../shared/schemas/kinetics.js";
 
 /** A number for JSON: NaN and ±Infinity become null (JSON has no spelling for them). */
@@ -44,8 +44,8 @@ export function presentFit(fit: IntegralFitResult, V0: number, includeSeries: bo
   return body;
 }
 
-/** The API's view of a check against the approved model. */
-export function presentCheck(check: KineticsCheckResult, includeSeries: boolean): CheckResponse {
+/** The API's view of a check against the approved model; the series come with a full check only. */
+export function presentCheck(check: KineticsVerdict | KineticsCheckResult): CheckResponse {
   const body: CheckResponse = {
     verdict: check.verdict,
     reasons: check.reasons,
@@ -62,7 +62,7 @@ export function presentCheck(check: KineticsCheckResult, includeSeries: boolean)
     notice: check.notice,
     libraryVersion: KINETICS_LIBRARY_VERSION,
   };
-  if (includeSeries) {
+  if ("predicted" in check) {
     body.predicted = plainArray(check.predicted);
     body.residuals = check.fit === null ? [] : plainArray(check.fit.residuals);
     const lin = check.linearised;

@@ -154,6 +154,8 @@ describe("POST /api/kinetics/check", () => {
     expect(uploaded.body.verdict).toBe("outside");
     expect(uploaded.body.reasons.map((r: { code: string }) => r.code)).toContain("k-outside-tolerance");
     expect(uploaded.body.predicted).toBeUndefined();
+    expect(uploaded.body.linearised).toBeUndefined();
+    expect(uploaded.body.deviationPct).toBeCloseTo(res.body.deviationPct, 3);
   });
 });
 
