@@ -17,6 +17,11 @@ export interface ClosedFormData {
    * checks them and the refinement gives up ("points need selection") at the first that fails.
    */
   guard?: PointGuard;
+  /**
+   * How many points from the first follow one another as the trace had them, with none dropped
+   * between (a selection's leading run): the passes may take the grid loops over that run alone.
+   */
+  leadingRun?: number;
 }
 
 export interface ClosedFormSolution {

@@ -19,6 +19,8 @@ export interface PassSums {
   jtj: number;
   jtr: number;
   sst: number;
+  /** The mean volume, kept with sst so that two parts' sums can be joined (`joinSums`). */
+  meanV?: number;
 }
 
 /** Open volume limits a point must lie strictly within, besides 0 ≤ t < ∞. */
@@ -58,7 +60,30 @@ export function finishSums(setup: PassSetup, out: LoopSums, wroteResiduals: bool
   sums.ssr = out.ssr;
   sums.jtj = gFactor * gFactor * out.gg;
   sums.jtr = gFactor * out.gr;
-  sums.sst = wroteResiduals ? out.squares - (out.sum * out.sum) / setup.t.length : Number.NaN;
+  const n = setup.t.length;
+  sums.sst = wroteResiduals ? out.squares - (out.sum * out.sum) / n : Number.NaN;
+  sums.meanV = wroteResiduals && n > 0 ? setup.V[0] + out.sum / n : Number.NaN;
+}
+
+/**
+ * The sums of a pass over `na` points followed by one over `nb` more, into `a`. Sums of squares
+ * about each part's mean join through the difference of the means (the pairwise update), as
+ * stable as either part.
+ */
+export function joinSums(a: PassSums, na: number, b: PassSums, nb: number): void {
+  a.ssr += b.ssr;
+  a.jtj += b.jtj;
+  a.jtr += b.jtr;
+  const meanA = a.meanV ?? Number.NaN, meanB = b.meanV ?? Number.NaN;
+  const n = na + nb;
+  if (na === 0) {
+    a.sst = b.sst;
+    a.meanV = meanB;
+  } else if (nb > 0) {
+    const gap = meanB - meanA;
+    a.sst += b.sst + (gap * gap * na * nb) / n;
+    a.meanV = meanA + (gap * nb) / n;
+  }
 }
 
 /**

@@ -6,6 +6,8 @@ export interface SelectedPoints {
   V: Float64Array;
   excluded: number;
   warnings: string[];
+  /** How many points from the first were kept one after another, before the first dropped one. */
+  leadingRun: number;
 }
 
 export interface SelectionRules {
@@ -26,7 +28,7 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
   const n = Math.min(trace.t.length, trace.V.length);
   const typed = trace.t instanceof Float64Array && trace.V instanceof Float64Array ? { t: trace.t, V: trace.V } : undefined;
   // With every point kept, typed arrays serve as they are.
-  const whole = typed && ((warnings: string[]): SelectedPoints => ({ t: typed.t.subarray(0, n), V: typed.V.subarray(0, n), excluded: 0, warnings }));
+  const whole = typed && ((warnings: string[]): SelectedPoints => ({ t: typed.t.subarray(0, n), V: typed.V.subarray(0, n), excluded: 0, warnings, leadingRun: n }));
   const clear = typed ? clearlyUsablePrefix(typed.t, typed.V, n, rules) : 0;
   if (whole && clear === n) return whole([]);
   // Into arrays sized for every point, the result viewing the part filled: the points before the
@@ -40,12 +42,13 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
     sortTypedPoints(typed.t, typed.V, clear, n, rules, t, V, counts);
   } else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
   const { kept, pastFull, pastCap, invalid } = counts;
+  const leadingRun = counts.firstDropAt < 0 ? kept : counts.firstDropAt;
   const warnings: string[] = [];
   if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
   if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
   if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
   if (whole && kept === n) return whole(warnings);
-  return { t: t.subarray(0, kept), V: V.subarray(0, kept), excluded: n - kept, warnings };
+  return { t: t.subarray(0, kept), V: V.subarray(0, kept), excluded: n - kept, warnings, leadingRun };
 }
 
 /** Margin on the conversion limit that covers the rounding of the quick test below. */
@@ -88,6 +91,12 @@ class SelectionCounts {
   pastFull = 0;
   pastCap = 0;
   invalid = 0;
+  /** Points kept before the first was dropped; −1 while none has been. */
+  firstDropAt = -1;
+
+  dropped(): void {
+    if (this.firstDropAt < 0) this.firstDropAt = this.kept;
+  }
 }
 
 /**
@@ -118,10 +127,12 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
       }
       if (vi > pastLow && vi < pastHigh) {
         pastFull++;
+        if (counts.firstDropAt < 0) counts.firstDropAt = kept;
         continue;
       }
       if (vi > capLow && vi < capHigh) {
         pastCap++;
+        if (counts.firstDropAt < 0) counts.firstDropAt = kept;
         continue;
       }
     }
@@ -137,16 +148,19 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
 /** The exact rule for one point: kept (appended to t and V), or counted as why it was not. */
 function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   if (!Number.isFinite(ti) || !Number.isFinite(vi) || ti < 0) {
+    counts.dropped();
     counts.invalid++;
     return;
   }
   const X = (vi - rules.V0) / (rules.epsilonA * rules.V0);
   if (!(X < 1)) {
+    counts.dropped();
     if (Number.isNaN(X)) counts.invalid++;
     else counts.pastFull++;
     return;
   }
   if (rules.maxConversion !== undefined && X > rules.maxConversion) {
+    counts.dropped();
     counts.pastCap++;
     return;
   }

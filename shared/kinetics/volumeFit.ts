@@ -85,7 +85,7 @@ function fitSelectedPoints(trace: Trace, options: VolumeFitOptions, fitOrder: bo
     return emptyResult(options.order, fitOrder, n, selected.excluded, warnings);
   }
   if (n < 5) warnings.push(`too few points: only ${n} usable.`);
-  const problem: VolumeProblem = { t: selected.t, V: selected.V, setup: options, fitOrder };
+  const problem: VolumeProblem = { t: selected.t, V: selected.V, setup: options, fitOrder, leadingRun: selected.leadingRun };
   const start = n > THIN_ABOVE ? startingParams(thinPoints(problem.t, problem.V, THIN_TARGET), options, fitOrder) : firstGuess(problem.t, problem.V, options, fitOrder);
   const solution = (n > THIN_ABOVE ? refineDirectly(problem, start) : undefined) ?? fitByLevenbergMarquardt(problem, start, warnings, n > THIN_ABOVE);
   return summarise(solution, options, fitOrder, selected.excluded, warnings);
@@ -97,6 +97,8 @@ interface VolumeProblem {
   V: Float64Array;
   setup: VolumeFitOptions;
   fitOrder: boolean;
+  /** Points from the first that the selection kept one after another (see ClosedFormData). */
+  leadingRun?: number;
 }
 
 /** A converged (or last) point of either fitting route with its residuals. */
@@ -135,10 +137,10 @@ function startingParams(coarse: { t: Float64Array; V: Float64Array }, setup: Vol
  * For a closed-form order at fixed n: Gauss–Newton on the full data from the thinned fit, one
  * fused pass per step; undefined (so the full LM runs) when a step fails to lower the residuals.
  */
-function refineDirectly({ t, V, setup, fitOrder }: VolumeProblem, start: number[]): VolumeSolution | undefined {
+function refineDirectly({ t, V, setup, fitOrder, leadingRun }: VolumeProblem, start: number[]): VolumeSolution | undefined {
   const order = closedFormOrder(setup, fitOrder);
   if (order === undefined) return undefined;
-  const fast = refineClosedForm({ order, t, V, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0 }, start[0], STEP_TOLERANCE);
+  const fast = refineClosedForm({ order, t, V, V0: setup.V0, epsilonA: setup.epsilonA, cA0: setup.cA0, leadingRun }, start[0], STEP_TOLERANCE);
   return fast.outcome === "converged" ? closedFormSolution(fast) : undefined;
 }
 

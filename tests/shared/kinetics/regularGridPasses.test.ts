@@ -1,10 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { fitVolumes, initialConcentrationGas, predictVolume } from "../../../shared/kinetics/index";
+import { fitVolumes, initialConcentrationGas, predictVolume, selectFitPoints } from "../../../shared/kinetics/index";
 import { closedFormPass } from "../../../shared/kinetics/closedFormPasses";
 import { OPEN_GUARD } from "../../../shared/kinetics/passBasics";
 import { likelyGrid } from "../../../shared/kinetics/regularGrid";
 import { gridPass } from "../../../shared/kinetics/regularGridPasses";
 import { SelectionBuffers } from "../../../shared/kinetics/selectionBuffers";
+import { ClosedFormPassRunner } from "../../../shared/kinetics/closedFormPassRunner";
 import { odexConversion } from "../../support/odexReference";
 
 const V0 = 2;
@@ -244,5 +245,80 @@ describe("SelectionBuffers", () => {
     const huge = buffers.take(200);
     expect(huge.t.length).toBe(200);
     expect(buffers.take(10).t).toBe(b.t);
+  });
+});
+
+describe("a grid run followed by points with gaps (a selection that dropped some near the end)", () => {
+  const relative = (a: number, b: number) => Math.abs(a / b - 1);
+  // Keeps every point up to `run`, then every third one: the times are a grid only up to `run`.
+  function withGapsAfter(t: Float64Array, V: Float64Array, run: number) {
+    const keep = Array.from({ length: t.length }, (_, i) => i).filter((i) => i < run || i % 3 === 0);
+    return { t: Float64Array.from(keep, (i) => t[i]), V: Float64Array.from(keep, (i) => V[i]) };
+  }
+
+  it.each(CASES)("order %i, εA = %f: the runner's grid-run-then-general passes equal the general pass", (order, epsilonA) => {
+    const k = order === 0 ? 6e-4 * CA0 : 6e-4 / Math.pow(CA0, order - 1);
+    const full = evenTimes(POINTS, order === 0 ? 900 : 3600);
+    const run = Math.floor(0.7 * POINTS);
+    const { t, V } = withGapsAfter(full, noisyVolumes(order, epsilonA, k, full, 1e-3), run);
+    const data = { order, t, V, V0, epsilonA, cA0: CA0 };
+    const split = new ClosedFormPassRunner({ ...data, leadingRun: run });
+    const plain = new ClosedFormPassRunner(data);
+    const sums = () => ({ ssr: 0, jtj: 0, jtr: 0, sst: 0 });
+    const [splitChecked, plainChecked, splitSums, plainSums] = [sums(), sums(), sums(), sums()];
+    expect(split.first(k, splitChecked)).toBe(true);
+    expect(plain.first(k, plainChecked)).toBe(true);
+    const splitResiduals = new Float64Array(t.length);
+    const plainResiduals = new Float64Array(t.length);
+    split.withResiduals(k, splitResiduals, splitSums);
+    plain.withResiduals(k, plainResiduals, plainSums);
+    let largest = 0;
+    for (let i = 0; i < t.length; i++) largest = Math.max(largest, Math.abs(splitResiduals[i] - plainResiduals[i]));
+    // Common practice: both carry an exponential (or a series) from point to point; they differ only by rounding.
+    expect(largest).toBeLessThan(1e-13);
+    for (const [a, b] of [[splitSums, plainSums], [splitChecked, plainChecked]]) {
+      expect(relative(a.ssr, b.ssr)).toBeLessThan(1e-10);
+      expect(relative(a.jtj, b.jtj)).toBeLessThan(1e-10);
+      expect(Math.abs(a.jtr - b.jtr)).toBeLessThan(1e-9 * Math.sqrt(b.jtj * b.ssr));
+    }
+    // The joined sum of squares about the mean against one computed directly from the volumes.
+    const mean = V.reduce((s, v) => s + v, 0) / V.length;
+    const sst = V.reduce((s, v) => s + (v - mean) ** 2, 0);
+    expect(relative(splitSums.sst, sst)).toBeLessThan(1e-12);
+    expect(relative(plainSums.sst, sst)).toBeLessThan(1e-12);
+  });
+
+  it("the selection reports how many points it kept before the first it dropped", () => {
+    const t = evenTimes(2000, 3600);
+    const V = predictVolume({ order: 1, k: 6e-4, epsilonA: 0.7, V0 }, t);
+    const rules = { V0, epsilonA: 0.7 };
+    expect(selectFitPoints({ t, V }, rules).leadingRun).toBe(2000);
+    V[1500] = V0 * 1.7 + 0.01; // past full conversion
+    V[1800] = Number.NaN;
+    for (const trace of [{ t, V }, { t: Array.from(t), V: Array.from(V) }]) {
+      const selected = selectFitPoints(trace, rules);
+      expect(selected.leadingRun).toBe(1500);
+      expect(selected.t.length).toBe(1998);
+    }
+    V[0] = Number.NaN; // the first point unreadable
+    expect(selectFitPoints({ t, V }, rules).leadingRun).toBe(0);
+  });
+
+  it("sends a selection that dropped points near the end through the grid run, with the same fit", () => {
+    const k = 8e-4;
+    const t = evenTimes(POINTS, 3 * 3600);
+    // Noise lifts some of the last volumes past full conversion, so the selection drops them.
+    const V = noisyVolumes(1, 0.7, k, t, 3e-4);
+    const fit = fitVolumes({ t, V }, { order: 1, V0, epsilonA: 0.7 });
+    expect(fit.excludedPoints).toBeGreaterThan(0);
+    expect(fit.converged).toBe(true);
+    // The same trace with its second time moved by 1 ns is no grid from the start, so it takes
+    // the general loops throughout; the shift moves k by far less than the bound below.
+    const shifted = Float64Array.from(t);
+    shifted[1] += 1e-9;
+    const reference = fitVolumes({ t: shifted, V }, { order: 1, V0, epsilonA: 0.7 });
+    expect(reference.points).toBe(fit.points);
+    expect(relative(fit.k, reference.k)).toBeLessThan(1e-9);
+    expect(relative(fit.residualRms, reference.residualRms)).toBeLessThan(1e-9);
   });
 });
