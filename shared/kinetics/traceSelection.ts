@@ -94,8 +94,9 @@ class SelectionCounts {
   /** Points kept before the first was dropped; −1 while none has been. */
   firstDropAt = -1;
 
-  dropped(): void {
-    if (this.firstDropAt < 0) this.firstDropAt = this.kept;
+  /** Notes a dropped point, `kept` points having been kept so far. */
+  dropped(kept: number): void {
+    if (this.firstDropAt < 0) this.firstDropAt = kept;
   }
 }
 
@@ -127,12 +128,12 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
       }
       if (vi > pastLow && vi < pastHigh) {
         pastFull++;
-        if (counts.firstDropAt < 0) counts.firstDropAt = kept;
+        counts.dropped(kept);
         continue;
       }
       if (vi > capLow && vi < capHigh) {
         pastCap++;
-        if (counts.firstDropAt < 0) counts.firstDropAt = kept;
+        counts.dropped(kept);
         continue;
       }
     }
@@ -148,19 +149,19 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
 /** The exact rule for one point: kept (appended to t and V), or counted as why it was not. */
 function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   if (!Number.isFinite(ti) || !Number.isFinite(vi) || ti < 0) {
-    counts.dropped();
+    counts.dropped(counts.kept);
     counts.invalid++;
     return;
   }
   const X = (vi - rules.V0) / (rules.epsilonA * rules.V0);
   if (!(X < 1)) {
-    counts.dropped();
+    counts.dropped(counts.kept);
     if (Number.isNaN(X)) counts.invalid++;
     else counts.pastFull++;
     return;
   }
   if (rules.maxConversion !== undefined && X > rules.maxConversion) {
-    counts.dropped();
+    counts.dropped(counts.kept);
     counts.pastCap++;
     return;
   }
