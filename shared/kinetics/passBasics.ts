@@ -66,24 +66,17 @@ export function finishSums(setup: PassSetup, out: LoopSums, wroteResiduals: bool
 }
 
 /**
- * The sums of a pass over `na` points followed by one over `nb` more, into `a`. Sums of squares
- * about each part's mean join through the difference of the means (the pairwise update), as
- * stable as either part.
+ * The sums of a pass over `na` points followed by one over `nb` more (both parts non-empty), into
+ * `a`. Sums of squares about each part's mean join through the difference of the means (the
+ * pairwise update), as stable as either part.
  */
 export function joinSums(a: PassSums, na: number, b: PassSums, nb: number): void {
   a.ssr += b.ssr;
   a.jtj += b.jtj;
   a.jtr += b.jtr;
-  const meanA = a.meanV ?? Number.NaN, meanB = b.meanV ?? Number.NaN;
-  const n = na + nb;
-  if (na === 0) {
-    a.sst = b.sst;
-    a.meanV = meanB;
-  } else if (nb > 0) {
-    const gap = meanB - meanA;
-    a.sst += b.sst + (gap * gap * na * nb) / n;
-    a.meanV = meanA + (gap * nb) / n;
-  }
+  const gap = (b.meanV ?? Number.NaN) - (a.meanV ?? Number.NaN);
+  a.sst += b.sst + (gap * gap * na * nb) / (na + nb);
+  a.meanV = (a.meanV ?? Number.NaN) + (gap * nb) / (na + nb);
 }
 
 /**
