@@ -15,6 +15,17 @@ export interface SelectionRules {
   epsilonA: number;
   /** Exclude points whose conversion read from volume exceeds this (default: exclude XA ≥ 1). */
   maxConversion?: number;
+  /**
+   * Keep points read at or past full conversion (XA ≥ 1) instead of dropping them. The volume fit
+   * does: near the plateau noise lifts some volumes past V0(1 + εA), and dropping only those (the
+   * ones lifted, never the ones lowered) biases k low. The linearised forms need XA < 1.
+   */
+  keepPastFull?: boolean;
+}
+
+/** The rules of the nonlinear volume fit: every valid point, past full conversion included. */
+export function volumeFitRules(V0: number, epsilonA: number): SelectionRules {
+  return { V0, epsilonA, keepPastFull: true };
 }
 
 /**
@@ -41,10 +52,11 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
     counts.kept = clear;
     sortTypedPoints(typed.t, typed.V, clear, n, rules, t, V, counts);
   } else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
-  const { kept, pastFull, pastCap, invalid } = counts;
+  const { kept, pastFull, pastFullKept, pastCap, invalid } = counts;
   const leadingRun = counts.firstDropAt < 0 ? kept : counts.firstDropAt;
   const warnings: string[] = [];
   if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
+  if (pastFullKept > 0) warnings.push(`${pastFullKept} point(s) read at or past full conversion (XA ≥ 1), kept in the fit as noise about the plateau; many, or far past it, point to a leak or a meter fault.`);
   if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
   if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
   if (whole && kept === n) return whole(warnings);
@@ -82,6 +94,7 @@ function clearlyBetween(rules: SelectionRules, lowX: number, highX: number): Vol
 
 /** The limits on V of points every rule keeps, with room to spare (0 ≤ t < ∞ checked besides). */
 export function clearVolumeLimits(rules: SelectionRules): VolumeLimits | undefined {
+  // Short of full conversion even when points past it are kept: those take the exact rule, which counts them.
   return clearlyBetween(rules, Number.NEGATIVE_INFINITY, Math.min(1, rules.maxConversion ?? 1));
 }
 
@@ -89,6 +102,8 @@ export function clearVolumeLimits(rules: SelectionRules): VolumeLimits | undefin
 class SelectionCounts {
   kept = 0;
   pastFull = 0;
+  /** Points at or past full conversion that were kept (keepPastFull). */
+  pastFullKept = 0;
   pastCap = 0;
   invalid = 0;
   /** Points kept before the first was dropped; −1 while none has been. */
@@ -108,7 +123,7 @@ class SelectionCounts {
 function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   const cap = rules.maxConversion;
   const keep = clearVolumeLimits(rules) ?? NONE;
-  const past = clearlyBetween(rules, 1, Number.POSITIVE_INFINITY) ?? NONE;
+  const past = (rules.keepPastFull ? undefined : clearlyBetween(rules, 1, Number.POSITIVE_INFINITY)) ?? NONE;
   const capped = (cap !== undefined && cap < 1 ? clearlyBetween(rules, cap, 1) : undefined) ?? NONE;
   // Plain doubles in locals (x + 0), so the loop does not re-read boxed numbers at every point.
   const keepLow = keep.lowV + 0, keepHigh = keep.highV + 0;
@@ -154,7 +169,8 @@ function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Arra
     return;
   }
   const X = (vi - rules.V0) / (rules.epsilonA * rules.V0);
-  if (!(X < 1)) {
+  if (rules.keepPastFull && X >= 1) counts.pastFullKept++;
+  else if (!(X < 1)) {
     counts.dropped(counts.kept);
     if (Number.isNaN(X)) counts.invalid++;
     else counts.pastFull++;

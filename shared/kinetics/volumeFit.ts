@@ -5,7 +5,7 @@ import { levenbergMarquardt } from "./levenbergMarquardt.js";
 import { residualsAt } from "./residuals.js";
 import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
-import { clearVolumeLimits, selectFitPoints, thinPoints } from "./traceSelection.js";
+import { clearVolumeLimits, selectFitPoints, thinPoints, volumeFitRules } from "./traceSelection.js";
 import { createVolumeModel } from "./volumeModel.js";
 import { closedFormReducedTime } from "./reducedTime.js";
 import { SelectionBuffers } from "./selectionBuffers.js";
@@ -53,7 +53,7 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   if (order === undefined) return undefined;
   if (!(trace.t instanceof Float64Array && trace.V instanceof Float64Array)) return undefined;
   const n = Math.min(trace.t.length, trace.V.length);
-  const rules = { V0: options.V0, epsilonA: options.epsilonA };
+  const rules = volumeFitRules(options.V0, options.epsilonA);
   const guard = clearVolumeLimits(rules);
   if (n <= THIN_ABOVE || guard === undefined) return undefined;
   const t = trace.t.subarray(0, n);
@@ -76,7 +76,7 @@ const selectionBuffers = new SelectionBuffers();
 
 /** The fit on the points the selection rules keep. */
 function fitSelectedPoints(trace: Trace, options: VolumeFitOptions, fitOrder: boolean): FitResult {
-  const selected = selectFitPoints(trace, { V0: options.V0, epsilonA: options.epsilonA }, selectionBuffers);
+  const selected = selectFitPoints(trace, volumeFitRules(options.V0, options.epsilonA), selectionBuffers);
   const warnings = [...selected.warnings];
   const parameterCount = fitOrder ? 2 : 1;
   const n = selected.t.length;

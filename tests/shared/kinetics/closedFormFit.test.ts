@@ -9,6 +9,7 @@ import {
   predictVolume,
   residualsAt,
   selectFitPoints,
+  volumeFitRules,
   type Trace,
 } from "../../../shared/kinetics/index";
 import { closedFormPass } from "../../../shared/kinetics/closedFormPasses";
@@ -41,7 +42,7 @@ function noisyTrace(order: number, epsilonA: number, k: number, duration: number
  * step of 1e−13·k so that its own stopping error stays well below the 1e−10 compared.
  */
 function fullLevenbergMarquardt(trace: Trace, order: number, epsilonA: number, start: number) {
-  const { t, V } = selectFitPoints(trace, { V0, epsilonA });
+  const { t, V } = selectFitPoints(trace, volumeFitRules(V0, epsilonA));
   const model = createVolumeModel({ t, V, V0, epsilonA, cA0: CA0, order, fitOrder: false });
   const lm = levenbergMarquardt(model, { initial: [start * 1.001], lower: [0], stepTolerance: 1e-13 });
   return { lm, ...residualsAt(t, V, { order, k: lm.params[0], epsilonA, V0, cA0: CA0 }) };
@@ -49,7 +50,7 @@ function fullLevenbergMarquardt(trace: Trace, order: number, epsilonA: number, s
 
 /** Residuals at k over the usable points from the fused passes, chosen as the refinement chooses them. */
 function passResiduals(trace: Trace, order: 0 | 1 | 2, epsilonA: number, k: number): Float64Array {
-  const { t, V } = selectFitPoints(trace, { V0, epsilonA });
+  const { t, V } = selectFitPoints(trace, volumeFitRules(V0, epsilonA));
   const residuals = new Float64Array(t.length);
   const sums = { ssr: 0, jtj: 0, jtr: 0, sst: 0 };
   const passes = new ClosedFormPassRunner({ order, t, V, V0, epsilonA, cA0: CA0 });
@@ -158,9 +159,10 @@ describe("fitVolumes on many points (fused Gauss–Newton route)", () => {
     trace.V[POINTS - 1] = V0 * 1.8;
     const fit = fitVolumes(trace, { order: 1, V0, epsilonA: 0.7 });
     const full = fullLevenbergMarquardt(trace, 1, 0.7, fit.k);
-    expect(fit.points).toBe(POINTS - 3);
-    expect(fit.excludedPoints).toBe(3);
-    expect(fit.warnings.join(" ")).toMatch(/full conversion/);
+    // The volume past full conversion is kept (with a warning); the unreadable and negative-time points are not.
+    expect(fit.points).toBe(POINTS - 2);
+    expect(fit.excludedPoints).toBe(2);
+    expect(fit.warnings.join(" ")).toMatch(/read at or past full conversion/);
     expect(relative(fit.k, full.lm.params[0])).toBeLessThan(1e-10);
   });
 });

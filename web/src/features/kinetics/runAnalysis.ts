@@ -2,7 +2,7 @@ import { checkTrace, KINETICS_CHECK_NOTICE, type ApprovedRateModel, type BatchCo
 import { initialConcentrationGas } from "../../../../shared/kinetics/conversion";
 import { fitAutoOrder } from "../../../../shared/kinetics/integralFit";
 import { KineticsInputError } from "../../../../shared/kinetics/kineticsInputError";
-import { selectFitPoints } from "../../../../shared/kinetics/traceSelection";
+import { selectFitPoints, volumeFitRules } from "../../../../shared/kinetics/traceSelection";
 import type { ParsedTrace } from "../../../../shared/kinetics/traceCsvParser";
 import type { CheckResponse, FitResponse, OrderTrialView } from "../../../../shared/schemas/kinetics";
 import type { AnalysisSetup } from "./analysisForm";
@@ -52,7 +52,7 @@ function ordersInBrowser(trace: ParsedTrace, model: ApprovedRateModel, condition
 export function analyseInBrowser(setup: AnalysisSetup, trace: ParsedTrace): AnalysisOutcome {
   const { model, conditions } = checkInputs(setup, trace);
   const result = checkTrace({ model, conditions, trace });
-  const used = selectFitPoints(trace, { V0: conditions.V0, epsilonA: model.epsilonA });
+  const used = selectFitPoints(trace, volumeFitRules(conditions.V0, model.epsilonA));
   return {
     where: "browser",
     verdict: result.verdict,
@@ -91,7 +91,7 @@ export async function analyseOnServer(setup: AnalysisSetup, trace: ParsedTrace, 
       orders = { trials: fit.orders ?? [], chosen: { order: fit.order, orderFitted: fit.orderFitted } };
     }
   }
-  const used = selectFitPoints(trace, { V0: conditions.V0, epsilonA: model.epsilonA });
+  const used = selectFitPoints(trace, volumeFitRules(conditions.V0, model.epsilonA));
   return {
     where: "server",
     verdict: check.verdict,

@@ -1,4 +1,4 @@
-import { selectFitPoints } from "../../../../shared/kinetics/traceSelection";
+import { selectFitPoints, volumeFitRules } from "../../../../shared/kinetics/traceSelection";
 import type { ParsedTrace } from "../../../../shared/kinetics/traceCsvParser";
 import { rateConstantUnit } from "../../../../shared/schemas/rateModels";
 import type { BatchTraceView, BatchView } from "../batches/types";
@@ -17,7 +17,7 @@ export function traceForCharts(trace: BatchTraceView["trace"]): ParsedTrace {
 export function checkOutcome(check: ReviewCheckView, view: BatchView, trace: BatchTraceView): AnalysisOutcome {
   const V0 = view.batch.v0L;
   const epsilonA = view.rateModel.epsilonA;
-  const used = selectFitPoints(traceForCharts(trace.trace), { V0, epsilonA });
+  const used = selectFitPoints(traceForCharts(trace.trace), volumeFitRules(V0, epsilonA));
   const { result } = check;
   return {
     where: "server",
