@@ -142,7 +142,10 @@ export function checkVerdict(input: KineticsCheckInput): KineticsVerdict {
       message: `The highest conversion read from the volume is ${show(maxConversion, 3)}, below the ${show(minConversion, 3)} needed for a meaningful fit.`,
     });
   }
-  const fit = fitVolumes(trace, { order: model.order, V0, epsilonA: eps, cA0, initialK: kModel });
+  // The trace alone gives the start: a start at the model's k could leave a batch far from the
+  // model stranded on the plateau (every point past full conversion at that k) and report a k
+  // close to the model's.
+  const fit = fitVolumes(trace, { order: model.order, V0, epsilonA: eps, cA0 });
   const minPoints = model.minPoints ?? 10;
   if (fit.points < minPoints) {
     reasons.push({ code: "too-few-points", message: `Only ${fit.points} usable point(s); the model asks for at least ${minPoints}.` });

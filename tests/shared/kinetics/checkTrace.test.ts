@@ -37,6 +37,23 @@ function trace(k: number, options: { points?: number; order?: number; noise?: nu
 const codes = (result: ReturnType<typeof checkTrace>) => result.reasons.map((r) => r.code);
 
 describe("checkTrace", () => {
+  it.each([50, 200, 5000])("finds the trace's own k when the model's k is %i times it", (times) => {
+    // A batch far faster in the model than in the vessel: started at the model's k, every point
+    // lay past full conversion and the fit reported k near the model's (0 % off at 200×).
+    // Ten points of a clean first-order rise, the trace's k 0.002 1/s (common practice: the
+    // observed k comes from the trace alone).
+    const k = 0.002;
+    const t = Float64Array.from({ length: 10 }, (_, i) => i * 127.9213940552251);
+    const V = predictVolume({ order: 1, k, epsilonA: 0.7, V0: 40 }, t);
+    const far = { ...model, kRef: k * times, Ea: 160e3, residualRmsMax: 0.6 };
+    const result = checkVerdict({ model: far, conditions: { T: 523.15, P: 2e5, V0: 40, yA0: 0.7 }, trace: { t, V } });
+    expect(result.kObserved / k - 1).toBeLessThan(1e-6);
+    expect(result.kObserved / k - 1).toBeGreaterThan(-1e-6);
+    expect(result.verdict).toBe("outside");
+    expect(result.reasons.map((r) => r.code)).toContain("k-outside-tolerance");
+    expect(result.reasons.map((r) => r.code)).not.toContain("fit-failed");
+  });
+
   it("passes a trace at the model's k", () => {
     const result = checkTrace({ model, conditions, trace: trace(8e-4) });
     expect(result.reasons).toEqual([]);
