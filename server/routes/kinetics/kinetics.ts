@@ -85,7 +85,20 @@ function traceFromJson(trace: TraceJson): Trace {
   };
 }
 
-function runFit(trace: Trace, params: Omit<FitParams, "csv">) {
+/**
+ * Without V0 the first reading is taken as the charge at the start of the reaction, so time is
+ * counted from it: a trace logged from t = 3600 s would otherwise be fitted as if 3600 s of
+ * reaction had passed before its first volume.
+ */
+function fromFirstReading(trace: Trace): { trace: Trace; warning?: string } {
+  const start = trace.t.length > 0 ? trace.t[0] : 0;
+  if (!(Number.isFinite(start) && start > 0)) return { trace };
+  const t = Float64Array.from(trace.t, (ti) => ti - start);
+  return { trace: { ...trace, t }, warning: `V0 was taken from the first volume, read at t = ${start} s; times are counted from that reading.` };
+}
+
+function runFit(original: Trace, params: Omit<FitParams, "csv">) {
+  const { trace, warning } = params.V0 === undefined ? fromFirstReading(original) : { trace: original, warning: undefined };
   const V0 = params.V0 ?? (trace.V.length > 0 ? trace.V[0] : undefined);
   if (V0 === undefined) throw new HttpError(422, "invalid-kinetics-input", "V0 is needed: the trace has no volumes to take it from.", "V0");
   if (params.order === "auto" && params.method === "linearised") {
@@ -95,6 +108,7 @@ function runFit(trace: Trace, params: Omit<FitParams, "csv">) {
   const fit: IntegralFitResult = compute(() =>
     params.order === "auto" ? fitAutoOrder(trace, setup) : fitIntegral(trace, { ...setup, order: params.order as number, method: params.method }),
   );
+  if (warning) fit.warnings.unshift(warning);
   return presentFit(fit, V0, params.includeSeries ?? true);
 }
 

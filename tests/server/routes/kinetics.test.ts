@@ -97,6 +97,19 @@ describe("POST /api/kinetics/fit", () => {
     expect(Math.max(...res.body.residuals.map(Math.abs))).toBeLessThan(1e-6);
   });
 
+  it("without V0, counts time from the first reading, whenever the logger's clock started", async () => {
+    // The same odex trace logged from t = 3600 s: its first volume is the charge, so V0 and time
+    // zero are that reading's.
+    const late = TIMES.map((ti) => ti + 3600);
+    const res = await op.post("/api/kinetics/fit", { trace: { t: late, V: volumes }, epsilonA: EPSILON, order: 1 });
+    expect(res.status).toBe(200);
+    expect(Math.abs(res.body.k / K_DEMO - 1)).toBeLessThan(1e-6);
+    expect(res.body.warnings.join(" ")).toMatch(/first volume, read at t = 3600 s; times are counted from that reading/);
+    // With V0 given, the times are the user's own: no shift, no such warning.
+    const given = await op.post("/api/kinetics/fit", { trace: { t: TIMES, V: volumes }, V0, epsilonA: EPSILON, order: 1 });
+    expect(given.body.warnings.join(" ")).not.toMatch(/counted from/);
+  });
+
   it("gives back the same k from a CSV upload", async () => {
     const res = await uploadTo(eng, "/api/kinetics/fit", JSON.stringify({ epsilonA: EPSILON, order: 1, V0 }), traceCsv(volumes));
     expect(res.status).toBe(200);
