@@ -50,7 +50,15 @@ export function computeEpsilonA(
 }
 
 function checkParticipants(list: ReactionParticipant[], field: string): void {
+  const seen = new Set<string>();
   list.forEach((p, i) => {
+    if (seen.has(p.species)) {
+      throw new KineticsInputError(
+        `${field}[${i}].species`,
+        `"${p.species}" appears twice on the same side of the reaction; give it once with its total coefficient.`,
+      );
+    }
+    seen.add(p.species);
     if (!Number.isFinite(p.coefficient) || p.coefficient <= 0) {
       throw new KineticsInputError(
         `${field}[${i}].coefficient`,
@@ -77,8 +85,9 @@ function checkFeed(feed: Record<string, number>, keySpecies: string): number {
   if (Math.abs(sum - 1) > FRACTION_SUM_TOLERANCE) {
     throw new KineticsInputError("feed", `Feed mole fractions must sum to 1 (they sum to ${sum}).`);
   }
-  const yA0 = feed[keySpecies];
-  if (yA0 === undefined || yA0 <= 0) {
+  // Own properties only: a species named like an object's built-in member ("constructor") is just absent.
+  const yA0 = Object.hasOwn(feed, keySpecies) ? feed[keySpecies] : undefined;
+  if (yA0 === undefined || !(yA0 > 0)) {
     throw new KineticsInputError(`feed.${keySpecies}`, `Key species "${keySpecies}" is missing from the feed.`);
   }
   return yA0;

@@ -55,6 +55,18 @@ describe("computeEpsilonA", () => {
     expect(fieldOf(() => computeEpsilonA(aToTwoR, "A", { N2: 1 }))).toBe("feed.A");
   });
 
+  it("refuses a species listed twice on one side instead of reading only its first entry", () => {
+    // A + A → B is 2A → B (εA = −0.5 from pure A); counting one A gave −1, which no fit accepts.
+    const twice: Reaction = { reactants: [{ species: "A", coefficient: 1, phase: "gas" }, { species: "A", coefficient: 1, phase: "gas" }], products: [{ species: "B", coefficient: 1, phase: "gas" }] };
+    expect(fieldOf(() => computeEpsilonA(twice, "A", { A: 1 }))).toBe("reaction.reactants[1].species");
+  });
+
+  it("treats a key species named like an object's built-in member as missing from the feed", () => {
+    const reaction: Reaction = { reactants: [{ species: "constructor", coefficient: 1, phase: "gas" }], products: [{ species: "R", coefficient: 2, phase: "gas" }] };
+    expect(fieldOf(() => computeEpsilonA(reaction, "constructor", { I: 1 }))).toBe("feed.constructor");
+    expect(computeEpsilonA(reaction, "constructor", { constructor: 0.5, I: 0.5 }).epsilonA).toBe(0.5);
+  });
+
   it("accepts fractions summing to 1 within 1e−6", () => {
     expect(computeEpsilonA(aToTwoR, "A", { A: 0.7, N2: 0.3000005 }).yA0).toBe(0.7);
   });
