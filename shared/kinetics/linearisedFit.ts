@@ -97,8 +97,12 @@ export function fitLinearised(trace: Trace, options: LinearisedOptions): FitResu
   const line = fitLineThroughOrigin(points.x, points.y);
   const k = line.slope / points.slopePerK;
   const kStdError = line.slopeStdError / points.slopePerK;
+  // No model to predict from without a positive k: too few points, or volumes that moved against
+  // the sign of εA (a falling line); the residuals are then unknown.
+  const usable = k > 0 && Number.isFinite(k);
+  if (n >= 2 && !usable) warnings.push(`no positive k: the straight line's slope is ${line.slope}; the volumes may move against the sign of εA.`);
   // Observed minus predicted, written over the prediction.
-  const residuals = n > 0 ? predictVolume({ order: options.order, k, epsilonA: options.epsilonA, V0: options.V0, cA0: options.cA0 }, points.x) : new Float64Array(0);
+  const residuals = !usable ? new Float64Array(n).fill(Number.NaN) : predictVolume({ order: options.order, k, epsilonA: options.epsilonA, V0: options.V0, cA0: options.cA0 }, points.x);
   const observed = points.V;
   let ssr = 0;
   for (let i = 0; i < n; i++) {
@@ -119,7 +123,7 @@ export function fitLinearised(trace: Trace, options: LinearisedOptions): FitResu
     residualRms: Math.sqrt(ssr / n),
     points: n,
     excludedPoints: points.excluded,
-    converged: Number.isFinite(k),
+    converged: usable,
     iterations: 0,
     warnings,
   };

@@ -130,6 +130,22 @@ describe("linearised integral fits", () => {
     const fit = fitLinearised(syntheticTrace(1, 3e-3, 0.7, 200, 3000), { order: 1, V0, epsilonA: 0.7 });
     expect(fit.warnings.join(" ")).toMatch(/conversion above 0.99 excluded/);
   });
+
+  it("reports too few points, not a missing cA0, when fewer than two conversions are below the cap", () => {
+    // Three of the four volumes read above 0.99 conversion (V0 40 L, εA 0.7: full at 68 L).
+    for (const trace of [{ t: [0, 300, 600, 900], V: [40, 67.9, 68, 68.1] }, { t: [0], V: [40] }]) {
+      const fit = fitLinearised(trace, { order: 1, V0: 40, epsilonA: 0.7, cA0: 0.0322 });
+      expect(fit.converged).toBe(false);
+      expect(fit.warnings.join(" ")).toMatch(/too few points/);
+    }
+  });
+
+  it("does not call a falling line converged when the volumes move against the sign of εA", () => {
+    const fit = fitLinearised({ t: [0, 300, 600, 900], V: [39, 38, 37, 36] }, { order: 1, V0: 40, epsilonA: 0.7 });
+    expect(fit.k).toBeLessThan(0);
+    expect(fit.converged).toBe(false);
+    expect(fit.warnings.join(" ")).toMatch(/no positive k/);
+  });
 });
 
 describe("order auto", () => {
