@@ -4,6 +4,9 @@ import { readHeader, type ColumnSpec, type TraceColumn } from "./csvHeader.js";
 import { GrowableFloat64 } from "./growableFloat64.js";
 import { TraceProblemList, type TraceCsvProblem } from "./traceProblemList.js";
 
+/** A number as instruments write it: decimal with an optional exponent (Number() would also take "0x28" or "0b1"). */
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
 export type { TraceCsvProblem, TraceCsvProblemCode } from "./traceProblemList.js";
 
 export interface TraceCsvOptions {
@@ -109,6 +112,8 @@ export function parseTraceCsv(text: string, options: TraceCsvOptions = {}): Trac
 class TraceRowReader {
   readonly problems = new TraceProblemList();
   lineNumber = 0;
+  /** The header row's line, so "no data rows" points just below it (trailing blank lines aside). */
+  private headerLine = 0;
   private delimiter: string | undefined;
   private columns: ColumnSpec[] | undefined;
   private readonly t = new GrowableFloat64();
@@ -138,6 +143,7 @@ class TraceRowReader {
   }
 
   private readHeaderRow(row: string[]): void {
+    this.headerLine = this.lineNumber;
     const { columns, problems } = readHeader(row);
     for (const p of problems) this.problems.add(this.lineNumber, p.code, p.message);
     this.columns = columns;
@@ -188,10 +194,10 @@ class TraceRowReader {
     return (this.columns as ColumnSpec[]).find((c) => c.column === which);
   }
 
-  /** Reads a numeric cell, logging a problem (and returning NaN) when it is not a number. */
+  /** Reads a numeric cell (plain decimal notation), logging a problem (and returning NaN) when it is not a number. */
   private numberAt(row: string[], spec: ColumnSpec): number {
     const cell = spec.index < row.length ? row[spec.index].trim() : "";
-    const value = cell === "" ? Number.NaN : Number(cell);
+    const value = DECIMAL.test(cell) ? Number(cell) : Number.NaN;
     if (!Number.isFinite(value)) {
       const shown = cell === "" ? "is empty" : `"${cell.slice(0, 40)}" is not a number`;
       this.problems.add(this.lineNumber, "not-a-number", `${spec.heading}: ${shown}.`);
@@ -204,7 +210,7 @@ class TraceRowReader {
     if (this.columns === undefined) {
       this.problems.add(Math.max(1, this.lineNumber), "no-data", "The file has no header row.");
     } else if (this.dataRows === 0 && this.problems.total === 0) {
-      this.problems.add(this.lineNumber + 1, "no-data", "The file has a header row but no data rows.");
+      this.problems.add(this.headerLine + 1, "no-data", "The file has a header row but no data rows.");
     }
     if (this.problems.total > 0) {
       return { ok: false, errors: this.problems.listed(), totalErrors: this.problems.total };

@@ -23,7 +23,17 @@ const ALIASES: Record<string, Unit> = {
  * and returns the catalogued unit, or undefined when it is not recognised.
  */
 export function parseUnit(text: string): Unit | undefined {
-  const key = text
+  const key = normalised(text);
+  const unit = ALIASES[key];
+  // Case is loose (exports write "ML" or "KPA"), except where a symbol written in SI case names
+  // another unit: "mPa" is the millipascal, not the megapascal, so it is refused, not misread.
+  const trimmed = text.trim();
+  if (unit === "MPa" && trimmed.startsWith("m") && trimmed !== trimmed.toLowerCase()) return undefined;
+  return unit;
+}
+
+function normalised(text: string): string {
+  return text
     .trim()
     .toLowerCase()
     .replace(/³/g, "3")
@@ -32,5 +42,4 @@ export function parseUnit(text: string): Unit | undefined {
     .replace(/[°º]/g, "deg")
     .replace(/[\s()._-]/g, "")
     .replace(/^deg(?=[ck]$)/, "");
-  return ALIASES[key];
 }

@@ -46,6 +46,21 @@ describe("parseTraceCsv", () => {
     expect(errors[0].message).toMatch(/^Line 3: .*"abc" is not a number/);
   });
 
+  it("points a header with no data rows at the line below the header, trailing blank lines aside", () => {
+    for (const text of ["t (s),V (L)", "t (s),V (L)\n", "t (s),V (L)\n\n\n"]) {
+      expect(errorsOf(parseTraceCsv(text)).map((e) => [e.line, e.code])).toEqual([[2, "no-data"]]);
+    }
+  });
+
+  it("takes plain decimal numbers only: hexadecimal or binary text is not a number", () => {
+    const text = ["time (s),volume (L)", "0,40", "1,0x28", "2,1e1", "3,.5", "4,+41.", "5,0b101"].join("\n");
+    const errors = errorsOf(parseTraceCsv(text));
+    expect(errors.map((e) => [e.line, e.code])).toEqual([
+      [3, "not-a-number"],
+      [7, "not-a-number"],
+    ]);
+  });
+
   it("reports missing columns, unknown units and travel without a bore area on line 1", () => {
     expect(errorsOf(parseTraceCsv("volume (L)\n1\n")).map((e) => e.code)).toEqual(["missing-column"]);
     expect(errorsOf(parseTraceCsv("time (fortnights),volume (L)\n0,1\n"))[0]).toMatchObject({ line: 1, code: "unknown-unit" });

@@ -87,4 +87,12 @@ describe("parseUnit", () => {
     expect(parseUnit("psi")).toBeUndefined();
     expect(parseUnit("furlong")).toBeUndefined();
   });
+
+  it("refuses mPa (the millipascal in SI case) rather than reading it as MPa", () => {
+    // SI Brochure, 9th edition, table 7: m is milli, M is mega (from memory).
+    expect(parseUnit("mPa")).toBeUndefined();
+    expect(parseUnit("MPa")).toBe("MPa");
+    expect(parseUnit("MPA")).toBe("MPa");
+    expect(parseUnit("mpa")).toBe("MPa");
+  });
 });
