@@ -1,3 +1,4 @@
+import { KineticsInputError } from "./kineticsInputError.js";
 import { orderLabel, rateConstantUnit, type FitResult } from "./fitResult.js";
 import type { ChargeSetup } from "./fitSetup.js";
 import { fitLinearised } from "./linearisedFit.js";
@@ -8,6 +9,12 @@ import { fitVolumes } from "./volumeFit.js";
 export const AUTO_ORDERS = [0, 0.5, 1, 1.5, 2] as const;
 /** An integer order is preferred when its residual RMS is within this factor of the best. */
 const SIMPLER_ORDER_MARGIN = 1.05;
+/**
+ * Residual RMS below this fraction of the largest volume is rounding, so fits that reach it are
+ * equally good whatever their RMS ratio: on a noise-free trace the tried order then wins over the
+ * free n (which would report n = 6e−15 for a zero-order trace).
+ */
+const ROUNDING_RMS = 1e-10;
 
 export interface OrderTrial {
   label: string;
@@ -46,6 +53,9 @@ export function fitIntegral(trace: Trace, options: IntegralFitOptions): Integral
  * except that an integer order within 5 % of the best is preferred.
  */
 export function fitAutoOrder(trace: Trace, setup: ChargeSetup): IntegralFitResult {
+  if (!(setup.cA0 !== undefined && setup.cA0 > 0)) {
+    throw new KineticsInputError("cA0", 'Order "auto" tries orders other than 1, so an initial concentration cA0 > 0 (mol/L) is needed.');
+  }
   const fits = AUTO_ORDERS.map((order) => fitVolumes(trace, { ...setup, order }));
   const usable = fits.filter((f) => f.converged && Number.isFinite(f.residualRms));
   const startOrder = usable.length > 0 ? usable.reduce((a, b) => (b.residualRms < a.residualRms ? b : a)).order : 1;
@@ -57,11 +67,22 @@ export function fitAutoOrder(trace: Trace, setup: ChargeSetup): IntegralFitResul
     return { ...fallback, warnings: [...fallback.warnings, "did not converge at any order tried."], orderTrials: trials };
   }
   const best = candidates.reduce((a, b) => (b.residualRms < a.residualRms ? b : a));
-  const integer = candidates
-    .filter((f) => !f.orderFitted && Number.isInteger(f.order) && f.residualRms <= SIMPLER_ORDER_MARGIN * best.residualRms)
-    .reduce<FitResult | undefined>((a, b) => (a === undefined || b.residualRms < a.residualRms ? b : a), undefined);
-  const chosen = integer ?? best;
+  const rounding = ROUNDING_RMS * largestMagnitude(trace.V);
+  const lowest = (list: FitResult[]) => list.reduce<FitResult | undefined>((a, b) => (a === undefined || b.residualRms < a.residualRms ? b : a), undefined);
+  const fixed = candidates.filter((f) => !f.orderFitted);
+  const integer = lowest(fixed.filter((f) => Number.isInteger(f.order) && f.residualRms <= Math.max(SIMPLER_ORDER_MARGIN * best.residualRms, rounding)));
+  const tried = lowest(fixed.filter((f) => f.residualRms <= Math.max(best.residualRms, rounding)));
+  const chosen = integer ?? tried ?? best;
   return { ...chosen, orderTrials: trials };
+}
+
+function largestMagnitude(values: ArrayLike<number>): number {
+  let largest = 0;
+  for (let i = 0; i < values.length; i++) {
+    const v = Math.abs(values[i]);
+    if (v > largest) largest = v;
+  }
+  return largest;
 }
 
 function toTrial(fit: FitResult): OrderTrial {

@@ -138,6 +138,13 @@ describe("POST /api/kinetics/fit", () => {
     expect(res.status).toBe(422);
     expect(res.body.error).toMatchObject({ code: "invalid-kinetics-input", field: "cA0" });
   });
+
+  it("needs cA0 for order auto too, and says it is for auto", async () => {
+    const res = await eng.post("/api/kinetics/fit", { trace: { t: TIMES, V: volumes }, epsilonA: EPSILON, order: "auto" });
+    expect(res.status).toBe(422);
+    expect(res.body.error).toMatchObject({ code: "invalid-kinetics-input", field: "cA0" });
+    expect(res.body.error.message).toMatch(/Order "auto"/);
+  });
 });
 
 describe("POST /api/kinetics/check", () => {

@@ -155,6 +155,17 @@ describe("order auto", () => {
     expect(fit.orderTrials?.map((trial) => trial.label)).toEqual(["n = 0", "n = 0.5", "n = 1", "n = 1.5", "n = 2", expect.stringMatching(/^free n = /)]);
   });
 
+  it.each([
+    [0, 2e-4, 1000],
+    [1.5, 5e-4, 3000],
+  ])("on a short noise-free trace of order %f, names that order, not a free n a rounding error away", (order, r0, duration) => {
+    // Twelve clean points: every fit's residuals are rounding, so no RMS ratio can choose.
+    const fit = fitIntegral(syntheticTrace(order, kFor(order, r0), 0.7, 12, duration), { order: "auto", V0, epsilonA: 0.7, cA0: CA0 });
+    expect(fit.orderFitted).toBe(false);
+    expect(fit.order).toBe(order);
+    expect(fit.kUnit).toBe(rateConstantUnit(order));
+  });
+
   it("prefers the integer order when its residual RMS is within 5 % of the best", () => {
     const trace = syntheticTrace(1, 8e-4, 0.7, 400, 3600);
     for (let i = 0; i < trace.V.length; i++) trace.V[i] += 2e-3 * Math.sin(i * 12.9898);
