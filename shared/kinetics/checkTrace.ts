@@ -162,7 +162,7 @@ export function checkVerdict(input: KineticsCheckInput): KineticsVerdict {
   if (fit.residualRms > model.residualRmsMax) {
     reasons.push({
       code: "residuals-too-large",
-      message: `Residual RMS of the fit is ${show(fit.residualRms)} L (${show(fit.residualRms * 1000)} mL), above the ${show(model.residualRmsMax)} L allowed: the trace does not follow an order-${show(model.order)} rise.`,
+      message: `Residual RMS of the fit is ${show(fit.residualRms)} L (${show(fit.residualRms * 1000)} mL), above the ${show(model.residualRmsMax)} L allowed: the trace does not follow an order-${show(model.order)} ${eps < 0 ? "fall" : "rise"} in volume.`,
     });
   }
   return {
