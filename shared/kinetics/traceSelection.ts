@@ -40,27 +40,32 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
   const typed = trace.t instanceof Float64Array && trace.V instanceof Float64Array ? { t: trace.t, V: trace.V } : undefined;
   // With every point kept, typed arrays serve as they are.
   const whole = typed && ((warnings: string[]): SelectedPoints => ({ t: typed.t.subarray(0, n), V: typed.V.subarray(0, n), excluded: 0, warnings, leadingRun: n }));
-  const clear = typed ? clearlyUsablePrefix(typed.t, typed.V, n, rules) : 0;
-  if (whole && clear === n) return whole([]);
+  const counts = new SelectionCounts();
+  const clear = typed ? clearlyUsablePrefix(typed.t, typed.V, n, rules, counts) : 0;
+  if (whole && clear === n) return whole(selectionWarnings(counts, cap));
   // Into arrays sized for every point, the result viewing the part filled: the points before the
   // first that needs a closer look in one block copy, the rest one by one.
   const { t, V } = buffers?.take(n) ?? { t: new Float64Array(n), V: new Float64Array(n) };
-  const counts = new SelectionCounts();
   if (typed) {
     t.set(typed.t.subarray(0, clear));
     V.set(typed.V.subarray(0, clear));
     counts.kept = clear;
     sortTypedPoints(typed.t, typed.V, clear, n, rules, t, V, counts);
   } else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
-  const { kept, pastFull, pastFullKept, pastCap, invalid } = counts;
+  const { kept } = counts;
   const leadingRun = counts.firstDropAt < 0 ? kept : counts.firstDropAt;
-  const warnings: string[] = [];
-  if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
-  if (pastFullKept > 0) warnings.push(`${pastFullKept} point(s) read at or past full conversion (XA ≥ 1), kept in the fit as noise about the plateau; many, or far past it, point to a leak or a meter fault.`);
-  if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
-  if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
+  const warnings = selectionWarnings(counts, cap);
   if (whole && kept === n) return whole(warnings);
   return { t: t.subarray(0, kept), V: V.subarray(0, kept), excluded: n - kept, warnings, leadingRun };
+}
+
+function selectionWarnings({ pastFull, pastFullKept, pastCap, invalid }: SelectionCounts, cap: number | undefined): string[] {
+  const warnings: string[] = [];
+  if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
+  if (pastFullKept > 0) warnings.push(`${pastFullKept} point(s) read at or past full conversion (XA ≥ 1), kept in the fit as noise about the plateau (volumes far past it point to a leak or a meter fault).`);
+  if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
+  if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
+  return warnings;
 }
 
 /** Margin on the conversion limit that covers the rounding of the quick test below. */
@@ -123,7 +128,9 @@ class SelectionCounts {
 function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   const cap = rules.maxConversion;
   const keep = clearVolumeLimits(rules) ?? NONE;
-  const past = (rules.keepPastFull ? undefined : clearlyBetween(rules, 1, Number.POSITIVE_INFINITY)) ?? NONE;
+  const past = clearlyBetween(rules, 1, Number.POSITIVE_INFINITY) ?? NONE;
+  // A cap below full conversion drops points past it whatever keepPastFull says.
+  const keepPast = rules.keepPastFull === true && !(cap !== undefined && cap < 1);
   const capped = (cap !== undefined && cap < 1 ? clearlyBetween(rules, cap, 1) : undefined) ?? NONE;
   // Plain doubles in locals (x + 0), so the loop does not re-read boxed numbers at every point.
   const keepLow = keep.lowV + 0, keepHigh = keep.highV + 0;
@@ -142,8 +149,16 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
         continue;
       }
       if (vi > pastLow && vi < pastHigh) {
-        pastFull++;
-        counts.dropped(kept);
+        if (keepPast) {
+          pastFull++;
+          t[kept] = ti;
+          V[kept++] = vi;
+        } else {
+          // Under keepPastFull only the cap can drop it, and the exact rule counts it there.
+          if (rules.keepPastFull) pastCap++;
+          else pastFull++;
+          counts.dropped(kept);
+        }
         continue;
       }
       if (vi > capLow && vi < capHigh) {
@@ -157,7 +172,8 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
     kept = counts.kept;
   }
   counts.kept = kept;
-  counts.pastFull += pastFull;
+  if (keepPast) counts.pastFullKept += pastFull;
+  else counts.pastFull += pastFull;
   counts.pastCap += pastCap;
 }
 
@@ -169,8 +185,7 @@ function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Arra
     return;
   }
   const X = (vi - rules.V0) / (rules.epsilonA * rules.V0);
-  if (rules.keepPastFull && X >= 1) counts.pastFullKept++;
-  else if (!(X < 1)) {
+  if (Number.isNaN(X) || (X >= 1 && !rules.keepPastFull)) {
     counts.dropped(counts.kept);
     if (Number.isNaN(X)) counts.invalid++;
     else counts.pastFull++;
@@ -181,6 +196,7 @@ function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Arra
     counts.pastCap++;
     return;
   }
+  if (X >= 1) counts.pastFullKept++;
   t[counts.kept] = ti;
   V[counts.kept++] = vi;
 }
@@ -188,10 +204,36 @@ function sortPoint(ti: number, vi: number, rules: SelectionRules, t: Float64Arra
 /** Limits no value meets, for when a quick test is not safe. */
 const NONE: VolumeLimits = { lowV: Number.NaN, highV: Number.NaN };
 
-/** One quick read of the trace: how many points from the first are within the clear limits (n when all are). */
-function clearlyUsablePrefix(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules): number {
+/**
+ * One quick read of the trace: how many points from the first are clearly kept (n when all are).
+ * Under keepPastFull with no cap every valid point is kept, and those at or past full conversion
+ * are counted into `counts` by the exact rule.
+ */
+function clearlyUsablePrefix(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules, counts: SelectionCounts): number {
+  if (rules.keepPastFull && rules.maxConversion === undefined) return validPrefixCountingPastFull(t, V, n, rules, counts);
   const limits = clearVolumeLimits(rules);
   return limits === undefined ? 0 : prefixWithin(t, V, n, limits.lowV, limits.highV);
+}
+
+/**
+ * The index of the first point with an invalid time or volume, or n; the valid points before it
+ * that read XA ≥ 1 are counted, by the same division as sortPoint and without a branch on it
+ * (noise about the plateau makes that test a coin toss at every point).
+ */
+function validPrefixCountingPastFull(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules, counts: SelectionCounts): number {
+  const V0 = rules.V0 + 0;
+  const perX = rules.epsilonA * rules.V0;
+  let pastFull = 0;
+  let i = 0;
+  for (; i < n; i++) {
+    const ti = t[i];
+    const v = V[i];
+    const X = (v - V0) / perX;
+    if (!(ti >= 0 && ti <= LARGEST && v - v === 0 && X === X)) break;
+    pastFull += X >= 1 ? 1 : 0;
+  }
+  counts.pastFullKept += pastFull;
+  return i;
 }
 
 /** The index of the first point without 0 ≤ t[i] < ∞ and lowV < V[i] < highV (NaN fails), or n. */

@@ -229,10 +229,11 @@ describe("quick selection scan", () => {
         fc.array(fc.tuple(fc.oneof(fc.double({ min: 0, max: 1e4, noNaN: true }), fc.constantFrom(-1, Number.NaN, Number.POSITIVE_INFINITY)), value), { minLength: 1, maxLength: 60 }),
         fc.constantFrom(undefined, 0.5, 0.99),
         fc.constantFrom(0.7, -0.3),
-        (pairs, maxConversion, epsilonA) => {
+        fc.boolean(),
+        (pairs, maxConversion, epsilonA, keepPastFull) => {
           const t = pairs.map(([ti]) => ti);
           const V = pairs.map(([, v]) => (epsilonA > 0 ? v : 4 - v));
-          const rules = { V0, epsilonA, maxConversion };
+          const rules = { V0, epsilonA, maxConversion, keepPastFull };
           const quick = selectFitPoints({ t: Float64Array.from(t), V: Float64Array.from(V) }, rules);
           const exact = selectFitPoints({ t, V }, rules);
           expect(Array.from(quick.t)).toEqual(Array.from(exact.t));
