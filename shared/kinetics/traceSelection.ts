@@ -59,10 +59,14 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
   return { t: t.subarray(0, kept), V: V.subarray(0, kept), excluded: n - kept, warnings, leadingRun };
 }
 
+export function pastFullKeptWarning(count: number): string {
+  return `${count} point(s) read at or past full conversion (XA ≥ 1), kept in the fit as noise about the plateau (volumes far past it point to a leak or a meter fault).`;
+}
+
 function selectionWarnings({ pastFull, pastFullKept, pastCap, invalid }: SelectionCounts, cap: number | undefined): string[] {
   const warnings: string[] = [];
   if (pastFull > 0) warnings.push(`${pastFull} point(s) at or past full conversion (XA ≥ 1) excluded.`);
-  if (pastFullKept > 0) warnings.push(`${pastFullKept} point(s) read at or past full conversion (XA ≥ 1), kept in the fit as noise about the plateau (volumes far past it point to a leak or a meter fault).`);
+  if (pastFullKept > 0) warnings.push(pastFullKeptWarning(pastFullKept));
   if (pastCap > 0) warnings.push(`conversion above ${cap} excluded (${pastCap} point(s)).`);
   if (invalid > 0) warnings.push(`${invalid} point(s) with a missing, non-finite or negative-time value excluded.`);
   return warnings;
@@ -217,24 +221,47 @@ function clearlyUsablePrefix(t: Float64Array, V: Float64Array, n: number, rules:
 
 /**
  * The index of the first point with an invalid time or volume, or n; the valid points before it
- * that read XA ≥ 1 are counted, by the same division as sortPoint and without a branch on it
- * (noise about the plateau makes that test a coin toss at every point).
+ * that read XA ≥ 1 are counted. Volumes clearly short of or clearly past full conversion are
+ * counted by comparisons without a branch (noise about the plateau makes that test a coin toss at
+ * every point); those within the margin of it take sortPoint's division.
  */
 function validPrefixCountingPastFull(t: Float64Array, V: Float64Array, n: number, rules: SelectionRules, counts: SelectionCounts): number {
-  const V0 = rules.V0 + 0;
-  const perX = rules.epsilonA * rules.V0;
-  let pastFull = 0;
   let i = 0;
-  for (; i < n; i++) {
+  while (i < n) {
     const ti = t[i];
     const v = V[i];
-    const X = (v - V0) / perX;
-    if (!(ti >= 0 && ti <= LARGEST && v - v === 0 && X === X)) break;
-    pastFull += X >= 1 ? 1 : 0;
+    if (!(ti >= 0 && ti <= LARGEST && v - v === 0)) break;
+    i++;
   }
-  counts.pastFullKept += pastFull;
+  counts.pastFullKept += countPastFull(V.subarray(0, i), rules);
   return i;
 }
+
+/**
+ * How many of these finite volumes read XA ≥ 1. Volumes clearly short of or clearly past full
+ * conversion are counted by comparisons without a branch (noise about the plateau makes that test
+ * a coin toss at every point); those within the margin of it take sortPoint's division.
+ */
+export function countPastFull(V: Float64Array, rules: SelectionRules): number {
+  const below = clearlyBetween(rules, Number.NEGATIVE_INFINITY, 1) ?? NONE;
+  const past = clearlyBetween(rules, 1, Number.POSITIVE_INFINITY) ?? NONE;
+  const belowLow = below.lowV + 0, belowHigh = below.highV + 0;
+  const pastLow = past.lowV + 0, pastHigh = past.highV + 0;
+  const V0 = rules.V0 + 0;
+  const perX = rules.epsilonA * rules.V0;
+  const n = V.length;
+  let pastFull = 0;
+  for (let i = 0; i < n; i++) {
+    const v = V[i];
+    const clearlyPast = (v > pastLow ? 1 : 0) & (v < pastHigh ? 1 : 0);
+    pastFull += clearlyPast;
+    if (clearlyPast === 0 && !(v > belowLow && v < belowHigh)) pastFull += (v - V0) / perX >= 1 ? 1 : 0;
+  }
+  return pastFull;
+}
+
+/** Limits for a pass that lets every finite volume through (the volume fit's rules keep them all). */
+export const FINITE_VOLUMES = { lowV: -LARGEST, highV: LARGEST } as const;
 
 /** The index of the first point without 0 ≤ t[i] < ∞ and lowV < V[i] < highV (NaN fails), or n. */
 function prefixWithin(t: Float64Array, V: Float64Array, n: number, lowV: number, highV: number): number {

@@ -5,7 +5,7 @@ import { levenbergMarquardt } from "./levenbergMarquardt.js";
 import { residualsAt } from "./residuals.js";
 import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
-import { clearVolumeLimits, selectFitPoints, thinPoints, volumeFitRules } from "./traceSelection.js";
+import { clearVolumeLimits, countPastFull, FINITE_VOLUMES, pastFullKeptWarning, selectFitPoints, thinPoints, volumeFitRules } from "./traceSelection.js";
 import { createVolumeModel } from "./volumeModel.js";
 import { closedFormReducedTime } from "./reducedTime.js";
 import { SelectionBuffers } from "./selectionBuffers.js";
@@ -45,8 +45,8 @@ export function fitVolumes(trace: Trace, options: VolumeFitOptions): FitResult {
 
 /**
  * Many points at a fixed closed-form order: start from a thinned copy and refine on every point,
- * the first full pass also checking that each point passes the selection rules with room to
- * spare, which saves a separate read of the trace. Undefined when a point needs the exact rules.
+ * the first full pass also checking that each point is valid (finite, t ≥ 0), which the volume
+ * fit's rules ask of a point, and no more. Undefined when a point is not (the selection drops it).
  */
 function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolean): FitResult | undefined {
   const order = closedFormOrder(options, fitOrder);
@@ -54,8 +54,10 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   if (!(trace.t instanceof Float64Array && trace.V instanceof Float64Array)) return undefined;
   const n = Math.min(trace.t.length, trace.V.length);
   const rules = volumeFitRules(options.V0, options.epsilonA);
-  const guard = clearVolumeLimits(rules);
-  if (n <= THIN_ABOVE || guard === undefined) return undefined;
+  // The rules keep every finite volume, so the checked pass only proves them finite; the quick
+  // limits are asked for only because a tiny |εA| makes the conversion too coarse to read.
+  if (n <= THIN_ABOVE || clearVolumeLimits(rules) === undefined) return undefined;
+  const guard = FINITE_VOLUMES;
   const t = trace.t.subarray(0, n);
   const V = trace.V.subarray(0, n);
   const coarse = selectFitPoints(thinPoints(t, V, THIN_TARGET), rules);
@@ -65,8 +67,10 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   const { V0, epsilonA, cA0 } = options;
   const refined = refineClosedForm({ order, t, V, V0, epsilonA, cA0, guard }, start[0], STEP_TOLERANCE);
   if (refined.outcome === "points need selection") return undefined;
-  // Every point passed, so the selection would keep them all.
-  const warnings: string[] = [];
+  // Every point passed (finite, t ≥ 0), so the selection keeps them all: one read of the volumes
+  // counts those past full conversion.
+  const pastFull = countPastFull(V, rules);
+  const warnings = pastFull > 0 ? [pastFullKeptWarning(pastFull)] : [];
   const solution = refined.outcome === "converged" ? closedFormSolution(refined) : fitByLevenbergMarquardt({ t, V, setup: options, fitOrder }, start, warnings, true);
   return summarise(solution, options, fitOrder, 0, warnings);
 }

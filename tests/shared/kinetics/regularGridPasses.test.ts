@@ -186,6 +186,19 @@ describe("fitVolumes on many points takes the same k by every route", () => {
     expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
   });
 
+  it("counts the volumes read past full conversion alike on the quick route and the exact one", () => {
+    // Zero order runs onto its plateau a third of the way in; noise puts about half the plateau
+    // past full conversion. Plain arrays take the exact rules, point by point.
+    const t = evenTimes(POINTS, 3 * 3600);
+    const V = noisyVolumes(0, 0.7, k * CA0, t, 1e-3);
+    const fast = fitVolumes({ t, V }, { order: 0, V0, epsilonA: 0.7, cA0: CA0 });
+    const exact = fitVolumes({ t: plainCopy(t), V: plainCopy(V) }, { order: 0, V0, epsilonA: 0.7, cA0: CA0 });
+    expect(fast.warnings.join(" ")).toMatch(/read at or past full conversion/);
+    expect(fast.warnings).toEqual(exact.warnings);
+    expect(fast.points).toBe(POINTS);
+    expect(relative(fast.k, exact.k)).toBeLessThan(1e-10);
+  });
+
   it.each([0, 1, 2] as const)("order %i with irregular times and a few unusable points", (order) => {
     const kk = k / Math.pow(CA0, order - 1);
     const t = evenTimes(POINTS, order === 0 ? 900 : 3600);
