@@ -63,6 +63,11 @@ class GridBlocks {
   rising(q: number): boolean {
     return this.model.direction * q * this.across < this.model.flatAt;
   }
+
+  /** The whole block is past full conversion (order 0): q only moves further past it along the grid. */
+  flat(q: number): boolean {
+    return this.model.direction * q >= this.model.flatAt;
+  }
 }
 
 function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, guard: PointGuard, out: LoopSums): GridPassOutcome {
@@ -82,7 +87,8 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
     const anchor = t0 + from * h;
     const q = blocks.firstQ(from);
     let stop = to;
-    if (!blocks.rising(q)) stop = checkedBlock(t, V, from, to, q, blocks, tolerance, guard);
+    if (blocks.flat(q)) stop = checkedFlatBlock(t, V, from, to, blocks, tolerance2, guard);
+    else if (!blocks.rising(q)) stop = checkedBlock(t, V, from, to, q, blocks, tolerance, guard);
     else {
       let qi = q;
       for (let i = from; i < to; i++) {
@@ -114,6 +120,31 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
  * the squares; the guard test can only be stricter (a product that underflows), which sends the
  * trace to the exact route and never lets a bad point through.
  */
+
+/**
+ * The checked sums over a block wholly past full conversion (order 0): the model is the flat
+ * volume, with no slope, so a point adds only (V − full)². A trace that runs onto its plateau
+ * spends much of its length here.
+ */
+function checkedFlatBlock(t: Float64Array, V: Float64Array, from: number, to: number, blocks: GridBlocks, tolerance2: number, guard: PointGuard): number {
+  const h = unboxed(blocks.grid.h);
+  const anchor = unboxed(blocks.grid.t0) + from * h;
+  const full = unboxed(blocks.model.full);
+  const lowV = unboxed(guard.lowV), highV = unboxed(guard.highV);
+  let ssr = 0;
+  for (let i = from; i < to; i++) {
+    const ti = t[i], v = V[i];
+    const off = ti - (anchor + (i - from) * h);
+    if (!(off * off <= tolerance2 && (v - lowV) * (highV - v) > 0)) {
+      blocks.sums.add(ssr, 0, 0);
+      return i;
+    }
+    const r = v - full;
+    ssr += r * r;
+  }
+  blocks.sums.add(ssr, 0, 0);
+  return to;
+}
 
 /** The checked sums over points from…to−1 of a block that reaches full conversion (order 0): flat from there on. */
 function checkedBlock(t: Float64Array, V: Float64Array, from: number, to: number, q: number, blocks: GridBlocks, tolerance: number, guard: PointGuard): number {
@@ -160,6 +191,10 @@ function residualLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume,
   for (let from = 0; from < n; from += ANCHOR_EVERY) {
     const to = Math.min(n, from + ANCHOR_EVERY);
     const q = blocks.firstQ(from);
+    if (blocks.flat(q)) {
+      flatBlockResiduals(V, residuals, from, to, blocks, shift);
+      continue;
+    }
     if (!blocks.rising(q)) {
       blockResiduals(V, residuals, from, to, q, blocks, shift);
       continue;
@@ -183,6 +218,22 @@ function residualLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume,
   const slope = model.slope;
   const sums = blocks.sums;
   keep(out, ssr + sums.ssr, slope * slope * (gg + sums.gg), slope * (gr + sums.gr), sum + sums.sum, squares + sums.squares);
+}
+
+/** Residuals over a block wholly past full conversion (order 0). */
+function flatBlockResiduals(V: Float64Array, residuals: Float64Array, from: number, to: number, blocks: GridBlocks, shift: number): void {
+  const full = unboxed(blocks.model.full);
+  let ssr = 0, sum = 0, squares = 0;
+  for (let i = from; i < to; i++) {
+    const v = V[i];
+    const r = v - full;
+    residuals[i] = r;
+    ssr += r * r;
+    const d = v - shift;
+    sum += d;
+    squares += d * d;
+  }
+  blocks.sums.add(ssr, 0, 0, sum, squares);
 }
 
 function blockResiduals(V: Float64Array, residuals: Float64Array, from: number, to: number, q: number, blocks: GridBlocks, shift: number): void {
