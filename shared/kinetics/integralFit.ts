@@ -1,4 +1,5 @@
 import { KineticsInputError } from "./kineticsInputError.js";
+import { volumeRange } from "./checkReasons.js";
 import { orderLabel, rateConstantUnit, type FitResult } from "./fitResult.js";
 import type { ChargeSetup } from "./fitSetup.js";
 import { fitLinearised } from "./linearisedFit.js";
@@ -67,22 +68,14 @@ export function fitAutoOrder(trace: Trace, setup: ChargeSetup): IntegralFitResul
     return { ...fallback, warnings: [...fallback.warnings, "did not converge at any order tried."], orderTrials: trials };
   }
   const best = candidates.reduce((a, b) => (b.residualRms < a.residualRms ? b : a));
-  const rounding = ROUNDING_RMS * largestMagnitude(trace.V);
+  const range = volumeRange(trace.V);
+  const rounding = ROUNDING_RMS * Math.max(Math.abs(range.largest), Math.abs(range.smallest));
   const lowest = (list: FitResult[]) => list.reduce<FitResult | undefined>((a, b) => (a === undefined || b.residualRms < a.residualRms ? b : a), undefined);
   const fixed = candidates.filter((f) => !f.orderFitted);
   const integer = lowest(fixed.filter((f) => Number.isInteger(f.order) && f.residualRms <= Math.max(SIMPLER_ORDER_MARGIN * best.residualRms, rounding)));
   const tried = lowest(fixed.filter((f) => f.residualRms <= Math.max(best.residualRms, rounding)));
   const chosen = integer ?? tried ?? best;
   return { ...chosen, orderTrials: trials };
-}
-
-function largestMagnitude(values: ArrayLike<number>): number {
-  let largest = 0;
-  for (let i = 0; i < values.length; i++) {
-    const v = Math.abs(values[i]);
-    if (v > largest) largest = v;
-  }
-  return largest;
 }
 
 function toTrial(fit: FitResult): OrderTrial {
