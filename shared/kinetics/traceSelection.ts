@@ -260,9 +260,6 @@ export function countPastFull(V: Float64Array, rules: SelectionRules): number {
   return pastFull;
 }
 
-/** Limits for a pass that lets every finite volume through (the volume fit's rules keep them all). */
-export const FINITE_VOLUMES = { lowV: -LARGEST, highV: LARGEST } as const;
-
 /** The index of the first point without 0 ≤ t[i] < ∞ and lowV < V[i] < highV (NaN fails), or n. */
 function prefixWithin(t: Float64Array, V: Float64Array, n: number, lowV: number, highV: number): number {
   for (let i = 0; i < n; i++) {

@@ -5,8 +5,9 @@ import { levenbergMarquardt } from "./levenbergMarquardt.js";
 import { residualsAt } from "./residuals.js";
 import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
-import { clearVolumeLimits, countPastFull, FINITE_VOLUMES, pastFullKeptWarning, selectFitPoints, thinPoints, volumeFitRules } from "./traceSelection.js";
+import { countPastFull, pastFullKeptWarning, selectFitPoints, thinPoints, volumeFitRules } from "./traceSelection.js";
 import { createVolumeModel } from "./volumeModel.js";
+import { OPEN_GUARD } from "./passBasics.js";
 import { closedFormReducedTime } from "./reducedTime.js";
 import { SelectionBuffers } from "./selectionBuffers.js";
 
@@ -54,10 +55,7 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   if (!(trace.t instanceof Float64Array && trace.V instanceof Float64Array)) return undefined;
   const n = Math.min(trace.t.length, trace.V.length);
   const rules = volumeFitRules(options.V0, options.epsilonA);
-  // The rules keep every finite volume, so the checked pass only proves them finite; the quick
-  // limits are asked for only because a tiny |εA| makes the conversion too coarse to read.
-  if (n <= THIN_ABOVE || clearVolumeLimits(rules) === undefined) return undefined;
-  const guard = FINITE_VOLUMES;
+  if (n <= THIN_ABOVE) return undefined;
   const t = trace.t.subarray(0, n);
   const V = trace.V.subarray(0, n);
   const coarse = selectFitPoints(thinPoints(t, V, THIN_TARGET), rules);
@@ -65,7 +63,8 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   if (coarse.excluded > 0 || coarse.t.length < 2) return undefined;
   const start = startingParams(coarse, options, false);
   const { V0, epsilonA, cA0 } = options;
-  const refined = refineClosedForm({ order, t, V, V0, epsilonA, cA0, guard }, start[0], STEP_TOLERANCE);
+  // The rules keep every finite volume, so the checked pass's open guard is all they ask.
+  const refined = refineClosedForm({ order, t, V, V0, epsilonA, cA0, guard: OPEN_GUARD }, start[0], STEP_TOLERANCE);
   if (refined.outcome === "points need selection") return undefined;
   // Every point passed (finite, t ≥ 0), so the selection keeps them all: one read of the volumes
   // counts those past full conversion.
