@@ -131,16 +131,22 @@ class SelectionCounts {
  */
 function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
   const cap = rules.maxConversion;
+  const keepPastFull = rules.keepPastFull === true;
+  const capBelowFull = cap !== undefined && cap < 1;
+  const unlimited = Number.POSITIVE_INFINITY;
+  // Each range clearly inside one outcome of the exact rule: kept short of full conversion; kept
+  // past it (keepPastFull, up to a cap); dropped past it; dropped above the cap.
   const keep = clearVolumeLimits(rules) ?? NONE;
-  const past = clearlyBetween(rules, 1, Number.POSITIVE_INFINITY) ?? NONE;
-  // A cap below full conversion drops points past it whatever keepPastFull says.
-  const keepPast = rules.keepPastFull === true && !(cap !== undefined && cap < 1);
-  const capped = (cap !== undefined && cap < 1 ? clearlyBetween(rules, cap, 1) : undefined) ?? NONE;
+  const keepPast = (keepPastFull && !capBelowFull ? clearlyBetween(rules, 1, cap ?? unlimited) : undefined) ?? NONE;
+  const dropPast = (keepPastFull ? undefined : clearlyBetween(rules, 1, unlimited)) ?? NONE;
+  const capped = (cap !== undefined && (capBelowFull || keepPastFull) ? clearlyBetween(rules, cap, keepPastFull ? unlimited : 1) : undefined) ?? NONE;
   // Plain doubles in locals (x + 0), so the loop does not re-read boxed numbers at every point.
   const keepLow = keep.lowV + 0, keepHigh = keep.highV + 0;
-  const pastLow = past.lowV + 0, pastHigh = past.highV + 0;
+  const keepPastLow = keepPast.lowV + 0, keepPastHigh = keepPast.highV + 0;
+  const dropPastLow = dropPast.lowV + 0, dropPastHigh = dropPast.highV + 0;
   const capLow = capped.lowV + 0, capHigh = capped.highV + 0;
   let kept = counts.kept;
+  let pastFullKept = 0;
   let pastFull = 0;
   let pastCap = 0;
   for (let i = from; i < n; i++) {
@@ -152,17 +158,15 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
         V[kept++] = vi;
         continue;
       }
-      if (vi > pastLow && vi < pastHigh) {
-        if (keepPast) {
-          pastFull++;
-          t[kept] = ti;
-          V[kept++] = vi;
-        } else {
-          // Under keepPastFull only the cap can drop it, and the exact rule counts it there.
-          if (rules.keepPastFull) pastCap++;
-          else pastFull++;
-          counts.dropped(kept);
-        }
+      if (vi > keepPastLow && vi < keepPastHigh) {
+        pastFullKept++;
+        t[kept] = ti;
+        V[kept++] = vi;
+        continue;
+      }
+      if (vi > dropPastLow && vi < dropPastHigh) {
+        pastFull++;
+        counts.dropped(kept);
         continue;
       }
       if (vi > capLow && vi < capHigh) {
@@ -176,8 +180,8 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
     kept = counts.kept;
   }
   counts.kept = kept;
-  if (keepPast) counts.pastFullKept += pastFull;
-  else counts.pastFull += pastFull;
+  counts.pastFullKept += pastFullKept;
+  counts.pastFull += pastFull;
   counts.pastCap += pastCap;
 }
 

@@ -227,7 +227,7 @@ describe("quick selection scan", () => {
     fc.assert(
       fc.property(
         fc.array(fc.tuple(fc.oneof(fc.double({ min: 0, max: 1e4, noNaN: true }), fc.constantFrom(-1, Number.NaN, Number.POSITIVE_INFINITY)), value), { minLength: 1, maxLength: 60 }),
-        fc.constantFrom(undefined, 0.5, 0.99),
+        fc.constantFrom(undefined, 0.5, 0.99, 1.5),
         fc.constantFrom(0.7, -0.3),
         fc.boolean(),
         (pairs, maxConversion, epsilonA, keepPastFull) => {
