@@ -19,15 +19,18 @@ import { secondOrderResiduals, secondOrderSums } from "./secondOrderPasses.js";
 export function closedFormPass(setup: PassSetup, residuals: Float64Array | null, sums: PassSums, guard: PointGuard = OPEN_GUARD): boolean {
   const out = new LoopSums();
   let complete = true;
+  let loopFactor: number;
   if (setup.order === 2) {
     if (residuals === null) complete = secondOrderSums(setup, guard, out);
     else secondOrderResiduals(setup, residuals, out);
+    loopFactor = 1 / setup.epsilonA;
   } else {
     const model = new ExponentialVolume(setup.order, setup.scale, setup.V0, setup.epsilonA);
     if (residuals === null) complete = exponentialSums(setup, model, guard, out);
     else exponentialResiduals(setup, model, residuals, out);
+    loopFactor = model.slope;
   }
-  finishSums(setup, out, residuals !== null, sums);
+  finishSums(setup, out, residuals !== null, sums, loopFactor);
   return complete;
 }
 
@@ -79,9 +82,9 @@ function exponentialSums(s: PassSetup, model: ExponentialVolume, guard: PointGua
       const r = v - full;
       ssr += r * r;
     }
+    keep(out, ssr, gg, gr, 0, 0);
   }
-  const slope = model.slope;
-  return keep(out, ssr, slope * slope * gg, slope * gr, 0, 0);
+  return true;
 }
 
 function exponentialResiduals(s: PassSetup, model: ExponentialVolume, residuals: Float64Array, out: LoopSums): void {
@@ -129,7 +132,6 @@ function exponentialResiduals(s: PassSetup, model: ExponentialVolume, residuals:
       sum += d;
       squares += d * d;
     }
+    keep(out, ssr, gg, gr, sum, squares);
   }
-  const slope = model.slope;
-  keep(out, ssr, slope * slope * gg, slope * gr, sum, squares);
 }

@@ -21,15 +21,19 @@ export type { GridPassOutcome } from "./regularGrid.js";
 export function gridPass(setup: PassSetup, grid: RegularGrid, residuals: Float64Array | null, sums: PassSums, guard: PointGuard): GridPassOutcome {
   const out = new LoopSums();
   let outcome: GridPassOutcome = "complete";
+  let loopFactor: number;
   if (setup.order === 2) {
     if (residuals === null) outcome = secondOrderGridSums(setup, grid, guard, out);
     else secondOrderGridResiduals(setup, grid, residuals, out);
+    loopFactor = 1 / setup.epsilonA;
   } else {
-    const model = new ExponentialVolume(setup.order, setup.scale, setup.V0, setup.epsilonA);
-    if (residuals === null) outcome = checkedLoop(setup, grid, model, guard, out);
-    else residualLoop(setup, grid, model, residuals, out);
+    const blocks = new GridBlocks(new ExponentialVolume(setup.order, setup.scale, setup.V0, setup.epsilonA), grid);
+    if (residuals === null) outcome = checkedLoop(setup, blocks, guard, out);
+    else residualLoop(setup, blocks, residuals, out);
+    out.addAll(blocks.sums);
+    loopFactor = blocks.model.slope;
   }
-  finishSums(setup, out, residuals !== null, sums);
+  finishSums(setup, out, residuals !== null, sums, loopFactor);
   return outcome;
 }
 
@@ -70,14 +74,15 @@ class GridBlocks {
   }
 }
 
-function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, guard: PointGuard, out: LoopSums): GridPassOutcome {
+/** The checked pass's rising blocks into `out` (the other blocks into blocks.sums); gg and gr without the slope. */
+function checkedLoop(s: PassSetup, blocks: GridBlocks, guard: PointGuard, out: LoopSums): GridPassOutcome {
   const { t, V } = s;
+  const { grid, model } = blocks;
   const n = t.length;
   const t0 = unboxed(grid.t0), h = unboxed(grid.h);
   const tolerance = GRID_TAU_TOLERANCE / s.scale;
   const refusal = gridStartRefusal(t, grid, tolerance);
   if (refusal !== undefined) return refusal;
-  const blocks = new GridBlocks(model, grid);
   const offset = unboxed(model.offset), factor = unboxed(blocks.factor);
   const lowV = unboxed(guard.lowV), highV = unboxed(guard.highV);
   const tolerance2 = tolerance * tolerance;
@@ -106,10 +111,8 @@ function checkedLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, 
       }
     }
     if (stop < to) return offGrid(t[stop], anchor + (stop - from) * h, tolerance) ? "off grid" : "outside guard";
+    keep(out, ssr, gg, gr, 0, 0);
   }
-  const slope = model.slope;
-  const sums = blocks.sums;
-  keep(out, ssr + sums.ssr, slope * slope * (gg + sums.gg), slope * (gr + sums.gr), 0, 0);
   return "complete";
 }
 
@@ -180,11 +183,12 @@ function checkedBlock(t: Float64Array, V: Float64Array, from: number, to: number
  * (within the tolerance the checked pass proved) and read only the volumes.
  */
 
-function residualLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume, residuals: Float64Array, out: LoopSums): void {
+/** The residual pass's rising blocks into `out` (the other blocks into blocks.sums); gg and gr without the slope. */
+function residualLoop(s: PassSetup, blocks: GridBlocks, residuals: Float64Array, out: LoopSums): void {
   const { V } = s;
+  const { grid, model } = blocks;
   const n = s.t.length;
   const shift = n > 0 ? V[0] : 0;
-  const blocks = new GridBlocks(model, grid);
   const t0 = unboxed(grid.t0), h = unboxed(grid.h);
   const offset = unboxed(model.offset), factor = unboxed(blocks.factor);
   let ssr = 0, gg = 0, gr = 0, sum = 0, squares = 0;
@@ -214,10 +218,8 @@ function residualLoop(s: PassSetup, grid: RegularGrid, model: ExponentialVolume,
       qi *= factor;
       time += h;
     }
+    keep(out, ssr, gg, gr, sum, squares);
   }
-  const slope = model.slope;
-  const sums = blocks.sums;
-  keep(out, ssr + sums.ssr, slope * slope * (gg + sums.gg), slope * (gr + sums.gr), sum + sums.sum, squares + sums.squares);
 }
 
 /** Residuals over a block wholly past full conversion (order 0). */

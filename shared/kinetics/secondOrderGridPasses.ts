@@ -17,7 +17,7 @@ function pointsWithinReach(reach: number, tauStep: number): number {
   return steps >= 1 ? Math.floor(steps) + 1 : 1;
 }
 
-/** The checked pass: sums without residuals, stopping at the first point off the grid or outside the guard. */
+/** The checked pass: sums (gg and gr without the factor 1/εA) without residuals, stopping at the first point off the grid or outside the guard. */
 export function secondOrderGridSums(s: PassSetup, grid: RegularGrid, guard: PointGuard, out: LoopSums): GridPassOutcome {
   const { t, V } = s;
   const n = t.length;
@@ -55,12 +55,12 @@ export function secondOrderGridSums(s: PassSetup, grid: RegularGrid, guard: Poin
       gr += g * r;
     }
     from = to;
+    keep(out, ssr, gg, gr, 0, 0);
   }
-  keep(out, ssr, gg / (eps * eps), gr / eps, 0, 0);
   return "complete";
 }
 
-/** The residual pass, after a checked pass has proved the grid: residuals, sums and the sums for sst. */
+/** The residual pass, after a checked pass has proved the grid: residuals, sums (as the checked pass's) and the sums for sst. */
 export function secondOrderGridResiduals(s: PassSetup, grid: RegularGrid, residuals: Float64Array, out: LoopSums): void {
   const { V } = s;
   const n = s.t.length;
@@ -97,6 +97,6 @@ export function secondOrderGridResiduals(s: PassSetup, grid: RegularGrid, residu
       d += tauStep;
     }
     from = to;
+    keep(out, ssr, gg, gr, sum, squares);
   }
-  keep(out, ssr, gg / (eps * eps), gr / eps, sum, squares);
 }

@@ -1,4 +1,4 @@
-import { keep, LARGEST, LoopSums, unboxed, type PassSetup, type PointGuard } from "./passBasics.js";
+import { LARGEST, LoopSums, unboxed, type PassSetup, type PointGuard } from "./passBasics.js";
 import { SECOND_ORDER_DEGREE, secondOrderCoefficients, secondOrderConversion, secondOrderReach, secondOrderSingularity, type SecondOrderSingularity } from "./secondOrderSeries.js";
 
 /*
@@ -53,16 +53,15 @@ export function secondOrderSums(s: PassSetup, guard: PointGuard, out: LoopSums):
   const lowV = unboxed(guard.lowV);
   const highV = unboxed(guard.highV);
   const anchor = new SecondOrderAnchor(V0, eps);
-  const sums = new LoopSums();
   let i = 0;
   while (i < n) {
     const ti = t[i];
     if (!(ti >= 0 && ti <= LARGEST)) return false;
     anchor.moveTo(scale * ti);
-    i = sumsWithinReach(t, V, i, scale, anchor, full, lowV, highV, sums);
+    i = sumsWithinReach(t, V, i, scale, anchor, full, lowV, highV, out);
     if (i < 0) return false;
   }
-  return keep(out, sums.ssr, sums.gg / (eps * eps), sums.gr / eps, 0, 0);
+  return true;
 }
 
 /** Sums over the points from `from` on within the anchor's reach; the index after them, or −1 at a point outside the guard. */
@@ -102,13 +101,11 @@ export function secondOrderResiduals(s: PassSetup, residuals: Float64Array, out:
   const full = V0 * (1 + eps);
   const shift = n > 0 ? s.V[0] : 0;
   const anchor = new SecondOrderAnchor(V0, eps);
-  const sums = new LoopSums();
   let i = 0;
   while (i < n) {
     anchor.moveTo(scale * t[i]);
-    i = residualsWithinReach(t, s.V, residuals, i, scale, anchor, full, shift, sums);
+    i = residualsWithinReach(t, s.V, residuals, i, scale, anchor, full, shift, out);
   }
-  keep(out, sums.ssr, sums.gg / (eps * eps), sums.gr / eps, sums.sum, sums.squares);
 }
 
 /** Residuals and sums over the points from `from` on within the anchor's reach; the index after them. */
