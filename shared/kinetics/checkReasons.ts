@@ -84,14 +84,17 @@ export interface VolumeRange {
 /** One read of the volumes for their range, which both volume rules below start from. */
 export function volumeRange(V: ArrayLike<number>): VolumeRange {
   const n = V.length;
-  let largest = Number.NEGATIVE_INFINITY;
-  let smallest = Number.POSITIVE_INFINITY;
+  const range: VolumeRange = { largest: Number.NEGATIVE_INFINITY, smallest: Number.POSITIVE_INFINITY };
+  let largest = range.largest;
+  let smallest = range.smallest;
+  // Stored as they change (both at the first finite volume): nothing after the loop may need
+  // type feedback (see LoopSums in passBasics.ts).
   for (let i = 0; i < n; i++) {
     const v = V[i];
-    if (v > largest) largest = v;
-    if (v < smallest) smallest = v;
+    if (v > largest) range.largest = largest = v;
+    if (v < smallest) range.smallest = smallest = v;
   }
-  return { largest, smallest };
+  return range;
 }
 
 /**

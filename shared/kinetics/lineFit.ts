@@ -75,26 +75,55 @@ function originSums(x: ArrayLike<number>, y: ArrayLike<number>, weights?: ArrayL
   return { sxx, slope, ssr, syy };
 }
 
-/** The same sums, unweighted, over typed arrays: the loops a trace of a million points takes. */
+/**
+ * The same sums, unweighted, over typed arrays: the loops a trace of a million points takes. Each
+ * loop stores its sums into `sums` at the end of each block of points, so nothing after a loop
+ * needs type feedback (see LoopSums in passBasics.ts).
+ */
 function originSumsTyped(x: Float64Array, y: Float64Array): OriginSums {
+  const sums: OriginSums = { sxx: 0, slope: Number.NaN, ssr: 0, syy: 0 };
+  crossSums(x, y, sums);
+  sums.slope = sums.slope / sums.sxx;
+  squaredSums(x, y, sums);
+  return sums;
+}
+
+const SUM_BLOCK = 4096;
+
+/** Σx² into sums.sxx and Σx·y into sums.slope (divided by the caller). */
+function crossSums(x: Float64Array, y: Float64Array, sums: OriginSums): void {
   const n = Math.min(x.length, y.length);
   let sxx = 0;
   let sxy = 0;
-  for (let i = 0; i < n; i++) {
-    const xi = x[i];
-    sxx += xi * xi;
-    sxy += xi * y[i];
+  for (let from = 0; from < n; from += SUM_BLOCK) {
+    const to = Math.min(n, from + SUM_BLOCK);
+    for (let i = from; i < to; i++) {
+      const xi = x[i];
+      sxx += xi * xi;
+      sxy += xi * y[i];
+    }
+    sums.sxx = sxx;
+    sums.slope = sxy;
   }
-  const slope = sxy / sxx;
+}
+
+/** Σ(y − slope·x)² into sums.ssr and Σy² into sums.syy. */
+function squaredSums(x: Float64Array, y: Float64Array, sums: OriginSums): void {
+  const n = Math.min(x.length, y.length);
+  const slope = sums.slope + 0;
   let ssr = 0;
   let syy = 0;
-  for (let i = 0; i < n; i++) {
-    const yi = y[i];
-    const r = yi - slope * x[i];
-    ssr += r * r;
-    syy += yi * yi;
+  for (let from = 0; from < n; from += SUM_BLOCK) {
+    const to = Math.min(n, from + SUM_BLOCK);
+    for (let i = from; i < to; i++) {
+      const yi = y[i];
+      const r = yi - slope * x[i];
+      ssr += r * r;
+      syy += yi * yi;
+    }
+    sums.ssr = ssr;
+    sums.syy = syy;
   }
-  return { sxx, slope, ssr, syy };
 }
 
 /** Least-squares straight line y = a + b·x (optionally weighted), with 95 % intervals. */

@@ -88,6 +88,18 @@ function linearise(volumes: Float64Array, model: { V0: number; epsilonA: number;
   }
 }
 
+/** Writes observed − model over the model volumes; the residual sum of squares. */
+function subtractFrom(observed: Float64Array, model: Float64Array): number {
+  const n = model.length;
+  let ssr = 0;
+  for (let i = 0; i < n; i++) {
+    const r = observed[i] - model[i];
+    model[i] = r;
+    ssr += r * r;
+  }
+  return ssr;
+}
+
 /** k from the straight line through the origin of the linearised integral quantity against t. */
 export function fitLinearised(trace: Trace, options: LinearisedOptions): FitResult {
   const points = linearisedIntegral(trace, options);
@@ -103,13 +115,7 @@ export function fitLinearised(trace: Trace, options: LinearisedOptions): FitResu
   if (n >= 2 && !usable) warnings.push(`no positive k: the straight line's slope is ${line.slope}; the volumes may move against the sign of εA.`);
   // Observed minus predicted, written over the prediction.
   const residuals = !usable ? new Float64Array(n).fill(Number.NaN) : predictVolume({ order: options.order, k, epsilonA: options.epsilonA, V0: options.V0, cA0: options.cA0 }, points.x);
-  const observed = points.V;
-  let ssr = 0;
-  for (let i = 0; i < n; i++) {
-    const r = observed[i] - residuals[i];
-    residuals[i] = r;
-    ssr += r * r;
-  }
+  const ssr = subtractFrom(points.V, residuals);
   return {
     method: "linearised",
     order: options.order,

@@ -50,7 +50,7 @@ export function selectFitPoints(trace: Trace, rules: SelectionRules, buffers?: S
     t.set(typed.t.subarray(0, clear));
     V.set(typed.V.subarray(0, clear));
     counts.kept = clear;
-    sortTypedPoints(typed.t, typed.V, clear, n, rules, t, V, counts);
+    counts.kept = sortTypedPoints(typed.t, typed.V, clear, n, rules, t, V, counts);
   } else for (let i = 0; i < n; i++) sortPoint(trace.t[i], trace.V[i], rules, t, V, counts);
   const { kept } = counts;
   const leadingRun = counts.firstDropAt < 0 ? kept : counts.firstDropAt;
@@ -129,7 +129,7 @@ class SelectionCounts {
  * past full conversion or clearly past the cap are decided by comparisons alone; only those
  * near a limit (or invalid) take the exact rule.
  */
-function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): void {
+function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: number, rules: SelectionRules, t: Float64Array, V: Float64Array, counts: SelectionCounts): number {
   const cap = rules.maxConversion;
   const keepPastFull = rules.keepPastFull === true;
   const capBelowFull = cap !== undefined && cap < 1;
@@ -146,9 +146,8 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
   const dropPastLow = dropPast.lowV + 0, dropPastHigh = dropPast.highV + 0;
   const capLow = capped.lowV + 0, capHigh = capped.highV + 0;
   let kept = counts.kept;
-  let pastFullKept = 0;
-  let pastFull = 0;
-  let pastCap = 0;
+  // The counts go to `counts` where they change and the kept count is returned: nothing after
+  // the loop may need type feedback (see LoopSums in passBasics.ts).
   for (let i = from; i < n; i++) {
     const ti = tIn[i];
     const vi = vIn[i];
@@ -159,18 +158,18 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
         continue;
       }
       if (vi > keepPastLow && vi < keepPastHigh) {
-        pastFullKept++;
+        counts.pastFullKept++;
         t[kept] = ti;
         V[kept++] = vi;
         continue;
       }
       if (vi > dropPastLow && vi < dropPastHigh) {
-        pastFull++;
+        counts.pastFull++;
         counts.dropped(kept);
         continue;
       }
       if (vi > capLow && vi < capHigh) {
-        pastCap++;
+        counts.pastCap++;
         counts.dropped(kept);
         continue;
       }
@@ -179,10 +178,7 @@ function sortTypedPoints(tIn: Float64Array, vIn: Float64Array, from: number, n: 
     sortPoint(ti, vi, rules, t, V, counts);
     kept = counts.kept;
   }
-  counts.kept = kept;
-  counts.pastFullKept += pastFullKept;
-  counts.pastFull += pastFull;
-  counts.pastCap += pastCap;
+  return kept;
 }
 
 /** The exact rule for one point: kept (appended to t and V), or counted as why it was not. */
