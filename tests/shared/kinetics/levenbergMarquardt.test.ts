@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { createFirstOrderRiseModel, levenbergMarquardt } from "../../../shared/kinetics/index";
+import { levenbergMarquardt as mlLevenbergMarquardt } from "ml-levenberg-marquardt";
+import { createFirstOrderRiseModel, levenbergMarquardt, type NormalEquationsModel } from "../../../shared/kinetics/index";
 
 // NIST Statistical Reference Datasets, nonlinear regression, Misra1a: y = b1·(1 − exp(−b2·x)).
 const MISRA1A: [number, number][] = [
@@ -97,5 +98,42 @@ describe("Levenberg–Marquardt where the prediction does not depend on a parame
     expect(result.converged).toBe(false);
     expect(result.message).toMatch(/does not change/);
     expect(levenbergMarquardt(flat, { initial: [0.3] }).params[0]).toBeCloseTo(0.2, 9);
+  });
+});
+
+describe("Levenberg–Marquardt with one parameter and large residuals (a model that does not fit the data)", () => {
+  // y = e^(k·x) fitted to a line with a ripple: the residuals stay large at the least-squares k,
+  // so JᵀJ misses much of the residual sum's curvature.
+  const xs = Array.from({ length: 200 }, (_, i) => i / 199);
+  const ys = xs.map((xi) => 1 + 2 * xi + 0.3 * Math.sin(9 * xi));
+  const exponential: NormalEquationsModel = {
+    parameterCount: 1,
+    pointCount: xs.length,
+    accumulate(params, jtj, jtr) {
+      let ssr = 0;
+      if (jtj) jtj[0] = 0;
+      if (jtr) jtr[0] = 0;
+      for (let i = 0; i < xs.length; i++) {
+        const m = Math.exp(params[0] * xs[i]);
+        const r = ys[i] - m;
+        ssr += r * r;
+        if (jtj && jtr) {
+          jtj[0] += xs[i] * m * xs[i] * m;
+          jtr[0] += xs[i] * m * r;
+        }
+      }
+      return ssr;
+    },
+  };
+
+  it("reaches the k of ml-levenberg-marquardt (npm curve-fitting package, analytic Jacobian, tight tolerances) to 1e−9", () => {
+    const reference = mlLevenbergMarquardt(
+      { x: xs, y: ys },
+      ([k]: number[]) => (xi: number) => Math.exp(k * xi),
+      { initialValues: [0.5], jacobianFunction: ([k]: number[]) => (xi: number) => [xi * Math.exp(k * xi)], improvementThreshold: 1e-12, errorTolerance: 1e-15 },
+    );
+    const result = levenbergMarquardt(exponential, { initial: [0.5] });
+    expect(result.converged).toBe(true);
+    expect(relative(result.params[0], reference.parameterValues[0])).toBeLessThan(1e-9);
   });
 });
