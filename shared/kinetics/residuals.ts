@@ -9,6 +9,17 @@ export function residualsAt(
 ): { residuals: Float64Array; ssr: number; sst: number } {
   const n = t.length;
   const residuals = new Float64Array(n);
+  const sums = { ssr: 0, sum: 0, squares: 0 };
+  writeResiduals(t, V, model, residuals, sums);
+  return { residuals, ssr: sums.ssr, sst: sums.squares - (sums.sum * sums.sum) / n };
+}
+
+/**
+ * The residuals into `residuals`, and their sums into `sums` at the end of each block: nothing
+ * after the loop needs type feedback (see LoopSums in passBasics.ts).
+ */
+function writeResiduals(t: ArrayLike<number>, V: ArrayLike<number>, model: RateModelAtConditions, residuals: Float64Array, sums: { ssr: number; sum: number; squares: number }): void {
+  const n = t.length;
   const scale = reducedTimeScale(model.k, model.order, model.cA0);
   const kernel = createConversionKernel(model.order, model.epsilonA, scale * (n > 0 ? t[n - 1] : 0));
   const X = new Float64Array(BLOCK_POINTS);
@@ -29,6 +40,8 @@ export function residualsAt(
       sum += d;
       sumSquares += d * d;
     }
+    sums.ssr = ssr;
+    sums.sum = sum;
+    sums.squares = sumSquares;
   }
-  return { residuals, ssr, sst: sumSquares - (sum * sum) / n };
 }
