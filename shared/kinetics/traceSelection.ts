@@ -250,6 +250,42 @@ export function countPastFull(V: Float64Array, rules: SelectionRules): number {
   return pastFull;
 }
 
+/**
+ * Open limits on V that admit exactly the finite volumes reading XA < 1 under the exact rule
+ * ((V − V0)/(εA·V0) ≥ 1 is past full conversion): that rule is monotonic in V, so one edge splits
+ * the line, found by bracketing V0(1 + εA) and halving down to adjacent doubles. A checked pass
+ * with this guard proves that no point is past full conversion without counting them. Undefined
+ * when no edge is bracketed (a non-finite εA or V0).
+ */
+export function shortOfFullGuard(rules: SelectionRules): VolumeLimits | undefined {
+  const V0 = rules.V0;
+  const perX = rules.epsilonA * rules.V0;
+  // Past full lies above the edge when εA·V0 > 0 (+0 included), below it otherwise; `higher`
+  // is false below the edge and true above it either way.
+  const upward = 1 / perX > 0;
+  const higher = (v: number) => (v - V0) / perX >= 1 === upward;
+  const guess = V0 + perX;
+  if (!Number.isFinite(guess)) return undefined;
+  let width = Math.abs(guess) * 1e-15 + Number.MIN_VALUE;
+  let below = guess - width;
+  let above = guess + width;
+  for (let doublings = 0; (higher(below) || !higher(above)) && doublings < 1100; doublings++) {
+    width *= 2;
+    below = guess - width;
+    above = guess + width;
+  }
+  if (higher(below) || !higher(above) || !Number.isFinite(below) || !Number.isFinite(above)) return undefined;
+  // Halve until `below` and `above` are adjacent doubles: the last one short of the edge and the first past it.
+  for (;;) {
+    const middle = below + (above - below) / 2;
+    if (middle === below || middle === above) break;
+    if (higher(middle)) above = middle;
+    else below = middle;
+  }
+  // Upward, `above` is the first volume past full; downward, `below` is the last one.
+  return upward ? { lowV: Number.NEGATIVE_INFINITY, highV: above } : { lowV: below, highV: Number.POSITIVE_INFINITY };
+}
+
 /** The index of the first point without 0 ≤ t[i] < ∞ and lowV < V[i] < highV (NaN fails), or n. */
 function prefixWithin(t: Float64Array, V: Float64Array, n: number, lowV: number, highV: number): number {
   for (let i = 0; i < n; i++) {

@@ -5,9 +5,9 @@ import { levenbergMarquardt } from "./levenbergMarquardt.js";
 import { residualsAt } from "./residuals.js";
 import { t95 } from "./studentT.js";
 import type { Trace } from "./trace.js";
-import { countPastFull, pastFullKeptWarning, selectFitPoints, thinPoints, volumeFitRules } from "./traceSelection.js";
+import { countPastFull, pastFullKeptWarning, selectFitPoints, shortOfFullGuard, thinPoints, volumeFitRules } from "./traceSelection.js";
 import { createVolumeModel } from "./volumeModel.js";
-import { OPEN_GUARD } from "./passBasics.js";
+import { OPEN_GUARD, type PointGuard } from "./passBasics.js";
 import { closedFormReducedTime } from "./reducedTime.js";
 import { SelectionBuffers } from "./selectionBuffers.js";
 
@@ -32,6 +32,12 @@ const THIN_ABOVE = 2_000;
  * quarter of the cost, most of it at order 2, whose general model solves each point (measured).
  */
 const THIN_TARGET = 1_000;
+/**
+ * Points at the end of the trace read for volumes past full conversion before the checked pass
+ * is given a guard short of it: they gather on the plateau, where a thinned copy can miss a few,
+ * and a pass that stops there has cost a whole pass.
+ */
+const TAIL_CHECKED = 20_000;
 /** Marquardt's first λ from a start fitted to a thinned copy: the first step is nearly Gauss–Newton. */
 const FITTED_START_DAMPING = 1e-6;
 /** Converged when a full Gauss–Newton step is at most this fraction of k (as in the LM fit). */
@@ -63,12 +69,17 @@ function fitClearTrace(trace: Trace, options: VolumeFitOptions, fitOrder: boolea
   if (coarse.excluded > 0 || coarse.t.length < 2) return undefined;
   const start = startingParams(coarse, options, false);
   const { V0, epsilonA, cA0 } = options;
-  // The rules keep every finite volume, so the checked pass's open guard is all they ask.
-  const refined = refineClosedForm({ order, t, V, V0, epsilonA, cA0, guard: OPEN_GUARD }, start[0], STEP_TOLERANCE);
-  if (refined.outcome === "points need selection") return undefined;
-  // Every point passed (finite, t ≥ 0), so the selection keeps them all: one read of the volumes
-  // counts those past full conversion.
-  const pastFull = countPastFull(V, rules);
+  const refine = (guard: PointGuard) => refineClosedForm({ order, t, V, V0, epsilonA, cA0, guard }, start[0], STEP_TOLERANCE);
+  // When neither the thinned copy nor the last points read past full conversion, the checked
+  // pass takes a guard that admits only volumes short of it: if it completes, none is past, with
+  // no count. Else (or if a point past full turns up after all) the open guard, which is all the
+  // rules ask (every finite volume), and one read of the volumes counts those past full.
+  const shortOfFull = countPastFull(coarse.V, rules) === 0 && countPastFull(V.subarray(Math.max(0, n - TAIL_CHECKED)), rules) === 0 ? shortOfFullGuard(rules) : undefined;
+  let refined = shortOfFull === undefined ? undefined : refine(shortOfFull);
+  const noneAtFull = refined !== undefined && refined.outcome !== "points need selection";
+  if (!noneAtFull) refined = refine(OPEN_GUARD);
+  if (refined === undefined || refined.outcome === "points need selection") return undefined;
+  const pastFull = noneAtFull ? 0 : countPastFull(V, rules);
   const warnings = pastFull > 0 ? [pastFullKeptWarning(pastFull)] : [];
   const solution = refined.outcome === "converged" ? closedFormSolution(refined) : fitByLevenbergMarquardt({ t, V, setup: options, fitOrder }, start, warnings, true);
   return summarise(solution, options, fitOrder, 0, warnings);

@@ -9,6 +9,7 @@ import {
   predictVolume,
   residualsAt,
   selectFitPoints,
+  shortOfFullGuard,
   volumeFitRules,
   type Trace,
 } from "../../../shared/kinetics/index";
@@ -244,5 +245,48 @@ describe("quick selection scan", () => {
       ),
       { numRuns: 300 },
     );
+  });
+});
+
+describe("the guard short of full conversion", () => {
+  const pastByRule = (v: number, V0: number, epsilonA: number) => (v - V0) / (epsilonA * V0) >= 1;
+  const admits = (guard: { lowV: number; highV: number }, v: number) => v > guard.lowV && v < guard.highV;
+  const ulpsFrom = (x: number, steps: number) => {
+    const f = new Float64Array([x]);
+    const b = new BigInt64Array(f.buffer);
+    b[0] += BigInt(x >= 0 ? steps : -steps);
+    return f[0];
+  };
+
+  it("admits exactly the volumes the exact rule reads short of full conversion, at and beside its edge (property)", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1e-3, max: 1e3, noNaN: true }),
+        fc.oneof(fc.double({ min: -0.999, max: 5, noNaN: true }), fc.constantFrom(0, -0, 1e-12, -1e-12, 0.7, -0.5)),
+        fc.integer({ min: -8, max: 8 }),
+        (V0, epsilonA, steps) => {
+          const guard = shortOfFullGuard({ V0, epsilonA });
+          expect(guard).toBeDefined();
+          if (guard === undefined) return;
+          const edge = Number.isFinite(guard.highV) ? guard.highV : guard.lowV;
+          for (const v of [ulpsFrom(edge, steps), V0, V0 * (1 + epsilonA), -V0, 10 * V0]) {
+            expect(admits(guard, v)).toBe(!pastByRule(v, V0, epsilonA));
+          }
+        },
+      ),
+      { numRuns: 500 },
+    );
+  });
+
+  it("a point past full conversion that the thinned copy and the last points miss is still counted, with k as the selection route gives", () => {
+    const epsilonA = 0.7;
+    const trace = noisyTrace(1, epsilonA, 6e-4, 3600, 1e-3, 100_000);
+    // One spike past full conversion early on, off every thinned index and far from the end.
+    trace.V[12_345] = V0 * (1 + epsilonA) + 0.01;
+    const fit = fitVolumes(trace, { order: 1, V0, epsilonA });
+    expect(fit.warnings.join(" ")).toMatch(/^1 point\(s\) read at or past full conversion/);
+    const viaSelection = fitVolumes({ t: Array.from(trace.t), V: Array.from(trace.V) }, { order: 1, V0, epsilonA });
+    expect(relative(fit.k, viaSelection.k)).toBeLessThan(1e-10);
+    expect(fit.points).toBe(100_000);
   });
 });
