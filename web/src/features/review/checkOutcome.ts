@@ -17,12 +17,10 @@ export function traceForCharts(trace: BatchTraceView["trace"]): ParsedTrace {
 export function checkOutcome(check: ReviewCheckView, view: BatchView, trace: BatchTraceView): AnalysisOutcome {
   const V0 = view.batch.v0L;
   const epsilonA = view.rateModel.epsilonA;
-  const charted = traceForCharts(trace.trace);
   // Library 1.1.0 on keeps points read past full conversion; a check stored by 1.0.0 dropped them,
   // and its residuals belong to the points those rules kept.
-  const fromNow = selectFitPoints(charted, volumeFitRules(V0, epsilonA));
-  const residualCount = check.result.fit?.residuals.length;
-  const used = residualCount === undefined || residualCount === fromNow.t.length ? fromNow : selectFitPoints(charted, { V0, epsilonA });
+  const rules = check.libraryVersion === "1.0.0" ? { V0, epsilonA } : volumeFitRules(V0, epsilonA);
+  const used = selectFitPoints(traceForCharts(trace.trace), rules);
   const { result } = check;
   return {
     where: "server",
