@@ -84,9 +84,9 @@ export interface VolumeRange {
 /** One read of the volumes for their range, which both volume rules below start from. */
 export function volumeRange(V: ArrayLike<number>): VolumeRange {
   const n = V.length;
-  const range: VolumeRange = { largest: Number.NEGATIVE_INFINITY, smallest: Number.POSITIVE_INFINITY };
-  let largest = range.largest;
-  let smallest = range.smallest;
+  let largest = Number.NEGATIVE_INFINITY;
+  let smallest = Number.POSITIVE_INFINITY;
+  const range: VolumeRange = { largest, smallest };
   // Stored as they change (both at the first finite volume): nothing after the loop may need
   // type feedback (see LoopSums in passBasics.ts).
   for (let i = 0; i < n; i++) {

@@ -59,7 +59,7 @@ export function fitAutoOrder(trace: Trace, setup: ChargeSetup): IntegralFitResul
   }
   const fits = AUTO_ORDERS.map((order) => fitVolumes(trace, { ...setup, order }));
   const usable = fits.filter((f) => f.converged && Number.isFinite(f.residualRms));
-  const startOrder = usable.length > 0 ? usable.reduce((a, b) => (b.residualRms < a.residualRms ? b : a)).order : 1;
+  const startOrder = lowestRms(usable)?.order ?? 1;
   fits.push(fitVolumes(trace, { ...setup, order: startOrder, fitOrder: true }));
   const candidates = fits.filter((f) => f.converged && Number.isFinite(f.residualRms));
   const trials = fits.map(toTrial);
@@ -67,15 +67,19 @@ export function fitAutoOrder(trace: Trace, setup: ChargeSetup): IntegralFitResul
     const fallback = fits[2];
     return { ...fallback, warnings: [...fallback.warnings, "did not converge at any order tried."], orderTrials: trials };
   }
-  const best = candidates.reduce((a, b) => (b.residualRms < a.residualRms ? b : a));
+  const best = lowestRms(candidates) as FitResult;
   const range = volumeRange(trace.V);
   const rounding = ROUNDING_RMS * Math.max(Math.abs(range.largest), Math.abs(range.smallest));
-  const lowest = (list: FitResult[]) => list.reduce<FitResult | undefined>((a, b) => (a === undefined || b.residualRms < a.residualRms ? b : a), undefined);
   const fixed = candidates.filter((f) => !f.orderFitted);
-  const integer = lowest(fixed.filter((f) => Number.isInteger(f.order) && f.residualRms <= Math.max(SIMPLER_ORDER_MARGIN * best.residualRms, rounding)));
-  const tried = lowest(fixed.filter((f) => f.residualRms <= Math.max(best.residualRms, rounding)));
+  const integer = lowestRms(fixed.filter((f) => Number.isInteger(f.order) && f.residualRms <= Math.max(SIMPLER_ORDER_MARGIN * best.residualRms, rounding)));
+  const tried = lowestRms(fixed.filter((f) => f.residualRms <= Math.max(best.residualRms, rounding)));
   const chosen = integer ?? tried ?? best;
   return { ...chosen, orderTrials: trials };
+}
+
+/** The fit of least residual RMS (the first of equals); undefined for none. */
+function lowestRms(fits: FitResult[]): FitResult | undefined {
+  return fits.reduce<FitResult | undefined>((a, b) => (a === undefined || b.residualRms < a.residualRms ? b : a), undefined);
 }
 
 function toTrial(fit: FitResult): OrderTrial {

@@ -81,17 +81,17 @@ function originSums(x: ArrayLike<number>, y: ArrayLike<number>, weights?: ArrayL
  * needs type feedback (see LoopSums in passBasics.ts).
  */
 function originSumsTyped(x: Float64Array, y: Float64Array): OriginSums {
-  const sums: OriginSums = { sxx: 0, slope: Number.NaN, ssr: 0, syy: 0 };
-  crossSums(x, y, sums);
-  sums.slope = sums.slope / sums.sxx;
+  const cross = { sxx: 0, sxy: 0 };
+  crossSums(x, y, cross);
+  const sums: OriginSums = { sxx: cross.sxx, slope: cross.sxy / cross.sxx, ssr: 0, syy: 0 };
   squaredSums(x, y, sums);
   return sums;
 }
 
 const SUM_BLOCK = 4096;
 
-/** Σx² into sums.sxx and Σx·y into sums.slope (divided by the caller). */
-function crossSums(x: Float64Array, y: Float64Array, sums: OriginSums): void {
+/** Σx² and Σx·y into `sums`. */
+function crossSums(x: Float64Array, y: Float64Array, sums: { sxx: number; sxy: number }): void {
   const n = Math.min(x.length, y.length);
   let sxx = 0;
   let sxy = 0;
@@ -103,7 +103,7 @@ function crossSums(x: Float64Array, y: Float64Array, sums: OriginSums): void {
       sxy += xi * y[i];
     }
     sums.sxx = sxx;
-    sums.slope = sxy;
+    sums.sxy = sxy;
   }
 }
 
